@@ -1,0 +1,27 @@
+/**
+ * The contract between element physics and the network solver.
+ *
+ * Every element of the network (pipe, hose, tool, separator, filter, producer)
+ * joins two ports and gives the mass flow through it from the absolute
+ * pressures at those ports, with the partial derivatives the Newton solver
+ * needs. Positive flow runs from port `a` to port `b`.
+ */
+export interface PortFlow {
+  /** Mass flow from port a to port b, kg/s (negative when b -> a). */
+  massFlowKgPerS: number;
+  /** d(mass flow)/d(pa), kg/(s Pa). */
+  dFlowDPa: number;
+  /** d(mass flow)/d(pb), kg/(s Pa). */
+  dFlowDPb: number;
+  /**
+   * Set when the law had to hold the flow at a physical limit (isothermal
+   * choking in a pipe, a choked tool orifice, the end of a producer curve),
+   * so that the caller can report it instead of trusting the value.
+   */
+  limited?: 'choked' | 'curve-end' | 'relief';
+}
+
+export interface TwoPortLaw {
+  /** Flow and derivatives at absolute port pressures pa, pb (Pa, both > 0). */
+  flow(pa: number, pb: number): PortFlow;
+}
