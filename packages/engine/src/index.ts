@@ -1,6 +1,7 @@
 // The engine's public surface. Each module adds its own export line here.
 export * from './network/model.js';
 export * from './elements/two-port-law.js';
+export * from './network/spec-sizes.js';
 export * from './units/number-text.js';
 export * from './units/quantity.js';
 export * from './units/format-quantity.js';
@@ -9,3 +10,12 @@ export * from './air/ambient.js';
 export * from './air/density.js';
 export * from './air/viscosity.js';
 export * from './air/flow-basis.js';
+export * from './rules/index.js';
+export * from './friction/friction-inputs.js';
+export * from './friction/churchill.js';
+export * from './friction/colebrook.js';
+export * from './friction/colebrook-approximations.js';
+export * from './friction/fittings/bends.js';
+export * from './friction/fittings/branch-entries.js';
+export * from './friction/fittings/area-changes.js';
+export * from './friction/fittings/entries-exits.js';

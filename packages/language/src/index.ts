@@ -1,0 +1,8 @@
+// The language package's public surface: the rest of the product imports from here, never from generated/.
+export { createVacnetServices, VacnetModule, type VacnetServices } from './vacnet-module.js';
+export { loadDocuments, toVacnetDiagnostic, type LoadedFile, type LoadResult } from './document.js';
+export type { VacnetDiagnostic, SourceRange, SourcePosition, DiagnosticSeverity } from './diagnostic.js';
+export { lowerSystem, type LoweredSystem } from './lowering/lower-system.js';
+export { SourceIndex } from './lowering/source-index.js';
+export { StructureCodes, type StructureCode } from './validation/codes.js';
+export * as Ast from './generated/ast.js';

@@ -1,0 +1,21 @@
+import { UriUtils, type URI } from 'langium';
+import type { Document } from '../generated/ast.js';
+
+/**
+ * The documents a file may refer into: those named by its `use` lines,
+ * resolved relative to the file itself.
+ */
+export function usedUris(document: Document, documentUri: URI): URI[] {
+  const base = UriUtils.dirname(documentUri);
+  return document.uses
+    .filter((use) => typeof use.path === 'string' && use.path.length > 2)
+    .map((use) => UriUtils.resolvePath(base, unquote(use.path)));
+}
+
+/** Strips the quotes Langium leaves on STRING values, and unescapes them. */
+export function unquote(text: string): string {
+  if (text.length >= 2 && text.startsWith('"') && text.endsWith('"')) {
+    return text.slice(1, -1).replace(/\\(.)/g, '$1');
+  }
+  return text;
+}

@@ -1,0 +1,48 @@
+import './node-shim.js';
+import { inject, type Module } from 'langium';
+import {
+  createDefaultModule,
+  createDefaultSharedModule,
+  type DefaultSharedModuleContext,
+  type LangiumServices,
+  type LangiumSharedServices,
+  type PartialLangiumServices,
+} from 'langium/lsp';
+import { VacnetGeneratedModule, VacnetGeneratedSharedModule } from './generated/module.js';
+import { VacnetScopeComputation } from './references/vacnet-scope-computation.js';
+import { VacnetScopeProvider } from './references/vacnet-scope-provider.js';
+import { registerValidationChecks, VacnetValidator } from './validation/vacnet-validator.js';
+
+/** Services of our own, added to Langium's. */
+export interface VacnetAddedServices {
+  validation: {
+    VacnetValidator: VacnetValidator;
+  };
+}
+
+export type VacnetServices = LangiumServices & VacnetAddedServices;
+
+export const VacnetModule: Module<VacnetServices, PartialLangiumServices & VacnetAddedServices> = {
+  references: {
+    ScopeComputation: (services) => new VacnetScopeComputation(services),
+    ScopeProvider: (services) => new VacnetScopeProvider(services),
+  },
+  validation: {
+    VacnetValidator: () => new VacnetValidator(),
+  },
+};
+
+/**
+ * Creates the shared services and the vacnet language services. The same
+ * wiring serves the language server, the headless loader and the tests.
+ */
+export function createVacnetServices(context: DefaultSharedModuleContext): {
+  shared: LangiumSharedServices;
+  Vacnet: VacnetServices;
+} {
+  const shared = inject(createDefaultSharedModule(context), VacnetGeneratedSharedModule);
+  const Vacnet = inject(createDefaultModule({ shared }), VacnetGeneratedModule, VacnetModule);
+  shared.ServiceRegistry.register(Vacnet);
+  registerValidationChecks(Vacnet);
+  return { shared, Vacnet };
+}
