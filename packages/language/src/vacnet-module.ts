@@ -11,6 +11,7 @@ import {
 import { VacnetGeneratedModule, VacnetGeneratedSharedModule } from './generated/module.js';
 import { VacnetScopeComputation } from './references/vacnet-scope-computation.js';
 import { VacnetScopeProvider } from './references/vacnet-scope-provider.js';
+import { VacnetLinker } from './references/vacnet-linker.js';
 import { registerValidationChecks, VacnetValidator } from './validation/vacnet-validator.js';
 
 /** Services of our own, added to Langium's. */
@@ -26,6 +27,7 @@ export const VacnetModule: Module<VacnetServices, PartialLangiumServices & Vacne
   references: {
     ScopeComputation: (services) => new VacnetScopeComputation(services),
     ScopeProvider: (services) => new VacnetScopeProvider(services),
+    Linker: (services) => new VacnetLinker(services),
   },
   validation: {
     VacnetValidator: () => new VacnetValidator(),

@@ -1,7 +1,7 @@
-import { ACCEPTED_UNITS, parseNumberText, toSI } from '@vacnet/engine';
+import { ACCEPTED_UNITS, parseNumberText, toSI, unitConversion, type Dimension } from '@vacnet/engine';
 import type { Quantity } from '../generated/ast.js';
 import { StructureCodes, type StructureCode } from '../validation/codes.js';
-import type { Expectation } from './quantity-expectations.js';
+import { SEA_LEVEL_PRESSURE_PA, type Expectation } from './quantity-expectations.js';
 
 /** A quantity read to SI, or why it could not be. */
 export type QuantityReading =
@@ -31,7 +31,7 @@ export function readQuantity(quantity: Quantity, expectation: Expectation): Quan
   const unit = quantity.unit?.trim();
   const reading = convert(value, unit, expectation);
   if (!reading.ok) return reading;
-  const range = rangeProblem(reading.si, expectation, reading.inDiameters === true);
+  const range = rangeProblem(reading.si, expectation, reading.inDiameters === true, unit);
   if (range) {
     return { ok: false, code: StructureCodes.valueImplausible, message: range, onUnit: false };
   }
@@ -73,20 +73,23 @@ function convert(value: number, unit: string | undefined, expectation: Expectati
   }
 }
 
-function rangeProblem(si: number, expectation: Expectation, inDiameters: boolean): string | undefined {
+function rangeProblem(si: number, expectation: Expectation, inDiameters: boolean, unit: string | undefined): string | undefined {
   if (inDiameters) {
     // Bends are made from about 0.5 D (mitred, short) to about 20 D (pulled sweeps): common practice.
     if (si < 0.5 || si > 20) return `A bend radius of ${si} D is not a real fitting; bends run from about 0.5 D to 20 D.`;
     return undefined;
   }
   const { min, max, minExclusive } = expectation;
+  const what = capitalise(expectation.what);
   if (min !== undefined && (si < min || (minExclusive && si === min))) {
-    return si < 0 && min >= 0
-      ? `${capitalise(expectation.what)} cannot be negative.`
-      : `${capitalise(expectation.what)} must be ${minExclusive ? 'greater than' : 'at least'} ${formatSI(min, expectation)}.`;
+    if (si < 0 && min >= 0) return `${what} cannot be negative.`;
+    return `${what} must be ${minExclusive ? 'greater than' : 'at least'} ${inWrittenUnit(min, expectation, unit)}.`;
   }
   if (max !== undefined && si > max) {
-    return `${capitalise(expectation.what)} of this size is not plausible here (the largest accepted is ${formatSI(max, expectation)}); check the number and its unit.`;
+    if (expectation.dimension === 'pressure' && max === SEA_LEVEL_PRESSURE_PA) {
+      return `${what} cannot exceed the atmosphere's own pressure (${inWrittenUnit(max, expectation, unit)} at sea level); check the number and its unit.`;
+    }
+    return `${what} this large is not plausible (at most ${inWrittenUnit(max, expectation, unit)}); check the number and its unit.`;
   }
   return undefined;
 }
@@ -96,11 +99,18 @@ const SI_UNIT: Record<string, string> = {
   temperature: 'K', power: 'W', time: 's', fraction: '', 'area-rate': 'm2/s', 'mass-flow': 'kg/s',
 };
 
-function formatSI(value: number, expectation: Expectation): string {
-  if (expectation.dimension === 'fraction') return `${+(value * 100).toPrecision(4)} %`;
-  if (expectation.dimension === 'angle') return `${+((value * 180) / Math.PI).toPrecision(4)} deg`;
-  const unit = SI_UNIT[expectation.dimension] ?? '';
-  return `${+value.toPrecision(4)}${unit ? ' ' + unit : ''}`;
+/** A limit in the unit the user wrote (so `35 inHg` is answered in inHg), else in SI. */
+function inWrittenUnit(si: number, expectation: Expectation, unit: string | undefined): string {
+  const dimension = expectation.dimension;
+  if (dimension === 'dimensionless' || dimension === 'radius') return `${+si.toPrecision(4)}`;
+  if (unit) {
+    const conversion = unitConversion(unit, dimension as Dimension);
+    if (conversion && conversion.scale > 0) return `${+((si - conversion.offset) / conversion.scale).toPrecision(4)} ${unit}`;
+  }
+  if (dimension === 'fraction') return `${+(si * 100).toPrecision(4)} %`;
+  if (dimension === 'angle') return `${+((si * 180) / Math.PI).toPrecision(4)} deg`;
+  const siUnit = SI_UNIT[dimension] ?? '';
+  return `${+si.toPrecision(4)}${siUnit ? ' ' + siUnit : ''}`;
 }
 
 function capitalise(text: string): string {
