@@ -19,3 +19,6 @@ export * from './friction/fittings/bends.js';
 export * from './friction/fittings/branch-entries.js';
 export * from './friction/fittings/area-changes.js';
 export * from './friction/fittings/entries-exits.js';
+export * from './elements/scalar-solve.js';
+export * from './elements/isothermal-pipe.js';
+export * from './elements/pipe-law.js';
