@@ -1,0 +1,44 @@
+import type { CheckResult, CheckSummary } from '../check-result.js';
+
+/** One finding in the JSON format. Lines and columns are 1-based, as in the text format. */
+export interface JsonDiagnostic {
+  severity: 'error' | 'warning' | 'info';
+  code: string;
+  message: string;
+  line: number;
+  column: number;
+  endLine: number;
+  endColumn: number;
+  source: string;
+}
+
+/** The JSON format's document; its shape is documented in the README. */
+export interface JsonCheckOutput {
+  files: { path: string; diagnostics: JsonDiagnostic[] }[];
+  summary: CheckSummary;
+}
+
+/** Converts a check result to the JSON format's document. */
+export function toJson(result: CheckResult): JsonCheckOutput {
+  return {
+    files: result.files.map((file) => ({
+      path: file.path,
+      diagnostics: file.diagnostics.map((d) => ({
+        severity: d.severity,
+        code: d.code,
+        message: d.message,
+        line: d.range.start.line + 1,
+        column: d.range.start.character + 1,
+        endLine: d.range.end.line + 1,
+        endColumn: d.range.end.character + 1,
+        source: d.source,
+      })),
+    })),
+    summary: result.summary,
+  };
+}
+
+/** The JSON format, pretty-printed, ending with a newline. */
+export function formatJson(result: CheckResult): string {
+  return JSON.stringify(toJson(result), null, 2) + '\n';
+}
