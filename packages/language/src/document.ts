@@ -118,18 +118,10 @@ function describeDocument(document: LangiumDocument, requested: boolean): Loaded
   return file;
 }
 
-/** Converts a Langium diagnostic to ours, naming parser and linker findings with stable codes. */
+/** Converts a language-server diagnostic to ours (codes were given by the document validator). */
 export function toVacnetDiagnostic(diagnostic: Diagnostic): VacnetDiagnostic {
-  const dataCode = (diagnostic.data as { code?: string } | undefined)?.code;
-  let code = typeof diagnostic.code === 'string' ? diagnostic.code : undefined;
-  let source: VacnetDiagnostic['source'] = 'structure';
-  if (!code) {
-    if (dataCode === 'linking-error') code = StructureCodes.unresolvedReference;
-    else {
-      code = StructureCodes.syntaxError;
-      source = 'syntax';
-    }
-  }
+  const code = typeof diagnostic.code === 'string' ? diagnostic.code : StructureCodes.syntaxError;
+  const source: VacnetDiagnostic['source'] = code === StructureCodes.syntaxError ? 'syntax' : 'structure';
   return {
     severity: severityName(diagnostic.severity),
     code,

@@ -13,6 +13,7 @@ import { VacnetScopeComputation } from './references/vacnet-scope-computation.js
 import { VacnetScopeProvider } from './references/vacnet-scope-provider.js';
 import { VacnetLinker } from './references/vacnet-linker.js';
 import { registerValidationChecks, VacnetValidator } from './validation/vacnet-validator.js';
+import { VacnetDocumentValidator } from './validation/vacnet-document-validator.js';
 
 /** Services of our own, added to Langium's. */
 export interface VacnetAddedServices {
@@ -31,6 +32,7 @@ export const VacnetModule: Module<VacnetServices, PartialLangiumServices & Vacne
   },
   validation: {
     VacnetValidator: () => new VacnetValidator(),
+    DocumentValidator: (services) => new VacnetDocumentValidator(services),
   },
 };
 

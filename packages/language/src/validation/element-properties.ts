@@ -54,7 +54,7 @@ export const ELEMENT_SHAPES: Record<string, ElementShape> = {
   Inlet: {
     noun: 'inlet',
     allowed: set('HoseRef', 'ToolRef', 'Room', 'public', 'locked', 'Threshold', 'Accept'),
-    required: [],
+    required: [['HoseRef'], ['ToolRef']],
     repeatable: set('Threshold', 'Accept'),
   },
 };
