@@ -27,6 +27,8 @@ const esmRequireBanner =
 
 const common = {
   bundle: true,
+  // Output paths in the metafile are relative to this; without it they follow the caller's folder.
+  absWorkingDir: root,
   platform: 'node',
   target: 'node20',
   alias,
@@ -60,6 +62,8 @@ const entries = [
       entryPoints: [at('packages/language/src/main.ts')],
       outfile: at('packages/extension/dist/server.cjs'),
       format: 'cjs',
+      // The .vsix ships no source maps.
+      sourcemap: false,
     },
   },
   {
@@ -70,6 +74,7 @@ const entries = [
       outfile: at('packages/extension/dist/extension.cjs'),
       format: 'cjs',
       external: ['vscode'],
+      sourcemap: false,
     },
   },
 ];
