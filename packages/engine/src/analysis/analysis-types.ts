@@ -8,6 +8,7 @@
  * or does not apply); the reason is in `failures`.
  */
 import type { ElementName, ElementRef, Finding } from '../network/model.js';
+import type { SolveFailureCause } from '../solve/solve-types.js';
 
 /** How the worst partner set of an inlet was found. */
 export type WorstCaseMethod = 'exact' | 'greedy-swap';
@@ -15,13 +16,7 @@ export type WorstCaseMethod = 'exact' | 'greedy-swap';
 export type ToolState = 'working' | 'lifted';
 
 /** Why a case could not be solved (the solver's failure causes). */
-export type SolveFailureCause =
-  | 'infeasible-demand'
-  | 'choked'
-  | 'no-path'
-  | 'zero-pressure'
-  | 'not-converged'
-  | 'invalid-element';
+export type { SolveFailureCause };
 
 export interface AnalysisOptions {
   /** Design operators; overrides the file and the area derivation. */
