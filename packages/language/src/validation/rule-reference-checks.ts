@@ -1,5 +1,5 @@
 import type { ValidationAcceptor } from 'langium';
-import { RULES } from '@vacnet/engine';
+import { ALL_RULES } from '@vacnet/engine';
 import type { Accept, RuleLine, Threshold } from '../generated/ast.js';
 import { findParameter, findRule, writtenParameterName } from '../semantics/rule-parameters.js';
 import { StructureCodes } from './codes.js';
@@ -8,7 +8,7 @@ import { StructureCodes } from './codes.js';
 export function checkRuleReference(line: RuleLine | Threshold | Accept, accept: ValidationAcceptor): void {
   const rule = findRule(line.rule);
   if (!rule) {
-    accept('warning', `There is no design rule '${line.rule}'. Rules: ${RULES.map((r) => r.code).join(', ')}.`, {
+    accept('warning', `There is no design rule '${line.rule}'. Design rules: ${ALL_RULES.map((r) => r.code).join(', ')}.`, {
       node: line,
       property: 'rule',
       code: StructureCodes.unknownRule,

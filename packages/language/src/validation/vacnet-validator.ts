@@ -109,7 +109,7 @@ export class VacnetValidator {
     for (const property of properties) {
       const key = propertyKey(property);
       if (!shape.allowed.has(key)) {
-        accept('error', `A ${shape.noun} does not take '${propertyWord(property)}'.`, {
+        accept('error', `${withArticle(shape.noun)} does not take '${propertyWord(property)}'.`, {
           node: property,
           code: StructureCodes.propertyNotAllowed,
         });
@@ -220,6 +220,11 @@ export class VacnetValidator {
   checkGraph = (system: System, accept: ValidationAcceptor): void => {
     checkSystemGraph(system, accept);
   };
+}
+
+/** 'A pipe', 'An inlet'. */
+function withArticle(noun: string): string {
+  return `${/^[aeiou]/i.test(noun) ? 'An' : 'A'} ${noun}`;
 }
 
 function requiredWord(key: string): string {
