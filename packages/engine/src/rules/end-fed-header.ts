@@ -53,7 +53,7 @@ export const endFedHeader: Rule = {
   defaultSeverity: 'info',
   parameters: [
     {
-      name: 'min-length',
+      name: 'minLength',
       dimension: 'length',
       // 50 ft: below this the header's own loss is small next to the hose; common practice.
       default: 50 * FOOT_M,
@@ -62,7 +62,7 @@ export const endFedHeader: Rule = {
       range: [0, 1e4],
     },
     {
-      name: 'min-inlets',
+      name: 'minInlets',
       dimension: 'count',
       // Three inlets: one at each end and one between; common practice.
       default: 3,
@@ -83,9 +83,9 @@ function checkHeaders(model: SystemModel, analysis: SystemAnalysis, settings: Ru
   const findings: Finding[] = [];
   for (const run of horizontalRuns(model, pipeGraph(model))) {
     const first = run.pipes[0]!;
-    if (run.lengthM < settings.value('min-length', first.rules)) continue;
+    if (run.lengthM < settings.value('minLength', first.rules)) continue;
     const inlets = inletsAlong(run, model, analysis);
-    if (inlets.length < settings.value('min-inlets', first.rules)) continue;
+    if (inlets.length < settings.value('minInlets', first.rules)) continue;
     const half = run.lengthM / 2;
     const near = inlets.filter((i) => i.positionM <= half);
     const far = inlets.filter((i) => i.positionM > half);

@@ -59,7 +59,7 @@ export const missingCleanout: Rule = {
       range: [0, 100],
     },
     {
-      name: 'bend-angle',
+      name: 'bendAngle',
       dimension: 'angle',
       // Drainage codes ask for a cleanout at horizontal changes of direction over 45 deg.
       default: Math.PI / 4,
@@ -68,7 +68,7 @@ export const missingCleanout: Rule = {
       range: [0, Math.PI],
     },
     {
-      name: 'short-run',
+      name: 'shortRun',
       dimension: 'length',
       // 5 ft: drainage codes exempt short horizontal runs from an end cleanout (from memory).
       default: 5 * FOOT_M,
@@ -113,7 +113,7 @@ function checkCleanouts(model: SystemModel, settings: RuleSettings): Finding[] {
   const runs = horizontalRuns(model, graph);
   for (const run of runs) {
     const last = run.pipes[run.pipes.length - 1]!;
-    if (run.lengthM >= settings.value('short-run', last.rules)) {
+    if (run.lengthM >= settings.value('shortRun', last.rules)) {
       need(last.to, last, `the far end of the horizontal run ending with '${last.name}'`);
     }
   }
@@ -135,7 +135,7 @@ function checkCleanouts(model: SystemModel, settings: RuleSettings): Finding[] {
   // pipe, so any cleanout on the pipe or at its ends counts.
   for (const pipe of model.pipes ?? []) {
     if (pipe.orientation !== 'horizontal') continue;
-    const limit = settings.value('bend-angle', pipe.rules);
+    const limit = settings.value('bendAngle', pipe.rules);
     const sharp = (pipe.fittings ?? []).filter((f) => f.kind === 'bend' && f.angleRad > limit + 1e-9);
     if (sharp.length === 0) continue;
     const near = settings.value('near', pipe.rules);
@@ -194,7 +194,7 @@ function checkCleanouts(model: SystemModel, settings: RuleSettings): Finding[] {
         ruleFinding(
           missingCleanout,
           { kind: 'pipe', name: pipeName },
-          `The horizontal run from '${run.pipes[0]!.from}' to '${run.pipes[run.pipes.length - 1]!.to}' goes ${formatLength(gap, units)} without a cleanout, more than ${formatLength(spacing, units)}. Add ${added === 1 ? 'a cleanout' : `${added} cleanouts`} on ${where}.`,
+          `The horizontal run from '${run.pipes[0]!.from}' to '${run.pipes[run.pipes.length - 1]!.to}' goes ${formatLength(gap, units)} without a cleanout (from ${formatLength(start, units)} to ${formatLength(start + gap, units)} along it), more than ${formatLength(spacing, units)}. Add ${added === 1 ? 'a cleanout' : `${added} cleanouts`} on ${where}.`,
           { fix: { cleanouts: positions } },
         ),
       );

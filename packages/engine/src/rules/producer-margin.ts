@@ -15,7 +15,7 @@ export const producerMargin: Rule = {
   defaultSeverity: 'warning',
   parameters: [
     {
-      name: 'margin',
+      name: 'minMargin',
       dimension: 'fraction',
       // 10 % flow margin over the demand: common practice (the file's `margin` line overrides).
       default: 0.1,
@@ -28,7 +28,7 @@ export const producerMargin: Rule = {
   check(model, analysis, settings) {
     if (!analysis) return [];
     const units = model.displayUnits ?? 'imperial';
-    const required = settings.value('margin', undefined, model.design?.producerMarginFraction);
+    const required = settings.value('minMargin', undefined, model.design?.producerMarginFraction);
     const findings: Finding[] = [];
     for (const p of analysis.producers ?? []) {
       const m = p.marginFraction;

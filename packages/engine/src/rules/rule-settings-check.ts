@@ -71,6 +71,11 @@ export function ruleHolders(model: SystemModel): Holder[] {
   return holders;
 }
 
+/** A parameter as written in files: kebab-case (`minRadius` is written `min-radius`). */
+function written(name: string): string {
+  return name.replace(/[A-Z]/g, (c) => '-' + c.toLowerCase());
+}
+
 function finding(info: RuleInfo, ref: ElementRef, property: string, message: string): Finding {
   return { code: info.code, severity: info.defaultSeverity, message, element: { ...ref, property } };
 }
@@ -92,8 +97,8 @@ export function checkRuleSettings(model: SystemModel, known: readonly RuleInfo[]
       }
       const parameter = info.parameters.find((p) => p.name === s.parameter);
       if (!parameter) {
-        const names = info.parameters.map((p) => p.name).join(', ') || 'none';
-        out.push(finding(UNKNOWN_RULE, ref, where, `Rule '${s.rule}' has no parameter '${s.parameter}' (it has: ${names}); the setting has no effect.`));
+        const names = info.parameters.map((p) => written(p.name)).join(', ') || 'none';
+        out.push(finding(UNKNOWN_RULE, ref, where, `Rule '${s.rule}' has no setting '${written(s.parameter)}' (it has: ${names}); the setting has no effect.`));
         continue;
       }
       if (!isValidSettingValue(parameter, s.value)) {
@@ -103,7 +108,7 @@ export function checkRuleSettings(model: SystemModel, known: readonly RuleInfo[]
             INVALID_RULE_SETTING,
             ref,
             where,
-            `'${s.rule} ${s.parameter}' must be a number from ${low} to ${high} (SI); the default applies instead.`,
+            `The ${written(s.parameter)} of '${s.rule}' must be from ${low} to ${high} (SI units); the default applies instead.`,
           ),
         );
       }

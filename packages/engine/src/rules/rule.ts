@@ -20,7 +20,7 @@ export type ParameterDimension =
   | 'count';
 
 export interface RuleParameter {
-  /** camelCase name used in settings (`minVelocity`). */
+  /** camelCase name in the engine (`minRadius`); files write it kebab-case (`min-radius`). */
   name: string;
   dimension: ParameterDimension;
   /** The value when neither the element, the system nor the design basis says otherwise. */

@@ -15,7 +15,7 @@ export const shortRadiusBend: Rule = {
   defaultSeverity: 'warning',
   parameters: [
     {
-      name: 'min-radius',
+      name: 'minRadius',
       dimension: 'ratio',
       // ASME B16.9 long-radius elbows are 1.5 D; UFGS asks for long-radius fittings.
       default: 1.5,
@@ -28,7 +28,7 @@ export const shortRadiusBend: Rule = {
   check(model, _analysis, settings) {
     const findings: Finding[] = [];
     for (const pipe of model.pipes ?? []) {
-      const least = settings.value('min-radius', pipe.rules);
+      const least = settings.value('minRadius', pipe.rules);
       (pipe.fittings ?? []).forEach((fitting, index) => {
         if (fitting.kind !== 'bend') return;
         if (!(fitting.radiusRatio < least)) return;

@@ -40,8 +40,8 @@ const DEBRIS_WORDS: Readonly<Record<DebrisClass, string>> = {
 
 /** The velocity a pipe needs with one operator: horizontal threshold, times the factor if vertical. */
 export function carryingThreshold(pipe: Pipe, settings: RuleSettings): number {
-  const horizontal = settings.value('horizontal', pipe.rules);
-  return isVertical(pipe) ? horizontal * settings.value('vertical-factor', pipe.rules) : horizontal;
+  const horizontal = settings.value('minVelocity', pipe.rules);
+  return isVertical(pipe) ? horizontal * settings.value('verticalFactor', pipe.rules) : horizontal;
 }
 
 /**
@@ -65,7 +65,7 @@ export const slowCarryingVelocity: Rule = {
   defaultSeverity: 'warning',
   parameters: [
     {
-      name: 'horizontal',
+      name: 'minVelocity',
       dimension: 'velocity',
       default: HORIZONTAL_CARRYING_VELOCITY.general,
       defaultByDebris: HORIZONTAL_CARRYING_VELOCITY,
@@ -75,7 +75,7 @@ export const slowCarryingVelocity: Rule = {
       range: [0, 200],
     },
     {
-      name: 'vertical-factor',
+      name: 'verticalFactor',
       dimension: 'ratio',
       // From memory: dust-collection guidance quoting 3500 fpm vertical against
       // 4000 fpm horizontal (0.875); horizontal governs. Common practice.

@@ -20,12 +20,12 @@ export const starvedInlet: Rule = {
   defaultSeverity: 'error',
   parameters: [
     {
-      name: 'needs',
+      name: 'requiredVacuum',
       dimension: 'pressure',
       // 40 inH2O (about 2.9 inHg) at the hose end: from memory, a usual floor-tool figure.
       default: DEFAULT_TOOL_NEED_PA,
       source: 'from memory: about 40 inH2O at the hose end for a floor tool; state the tool\'s own need in the file',
-      description: 'Vacuum a tool needs at the hose end where neither the tool kind nor the design basis says.',
+      description: 'Vacuum a tool needs at the hose end; a setting overrides the tool kind (default: the tool kind, the design default, then this).',
       range: [0, 101325],
     },
   ],
@@ -38,7 +38,7 @@ export const starvedInlet: Rule = {
       const wc = analysis.inlets?.find((i) => i.name === inlet.name)?.worstCase;
       if (!wc || !Number.isFinite(wc.toolVacuumPa)) continue;
       const stated = wc.requiredToolVacuumPa ?? undefined;
-      const need = settings.value('needs', inlet.rules, stated);
+      const need = settings.value('requiredVacuum', inlet.rules, stated);
       if (!(wc.toolVacuumPa < need)) continue;
       const others = (wc.openInlets ?? []).filter((n) => n !== inlet.name);
       const assumed = stated === undefined ? ` (the tool kind states no need; this is the rule's value)` : '';

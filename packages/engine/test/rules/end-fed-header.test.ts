@@ -48,7 +48,7 @@ describe('end-fed-header', () => {
   });
   it('ignores headers shorter than the minimum length', () => {
     const m = structuredClone(model);
-    m.rules.settings.push({ rule: 'end-fed-header', parameter: 'min-length', value: 250 * FT });
+    m.rules.settings.push({ rule: 'end-fed-header', parameter: 'minLength', value: 250 * FT });
     expect(run(m, header({ a: 5, b: 4.5, c: 3.2, d: 2.6 }))).toEqual([]);
   });
 });

@@ -20,7 +20,7 @@ describe('producer-margin', () => {
   it('takes the design basis margin line, and a rule setting over it', () => {
     const m = system({ design: { areas: [], debris: 'general', producerMarginFraction: 0.03 } });
     expect(run(m, at(0.05))).toEqual([]);
-    m.rules.settings.push({ rule: 'producer-margin', parameter: 'margin', value: 0.2 });
+    m.rules.settings.push({ rule: 'producer-margin', parameter: 'minMargin', value: 0.2 });
     expect(run(m, at(0.15))).toHaveLength(1);
   });
 });

@@ -61,7 +61,7 @@ describe('runRules', () => {
     m.rules.settings.push(
       { rule: 'no-such-rule', parameter: 'x', value: 1 },
       { rule: 'short-radius-bend', parameter: 'radius', value: 2 },
-      { rule: 'short-radius-bend', parameter: 'min-radius', value: Number.POSITIVE_INFINITY },
+      { rule: 'short-radius-bend', parameter: 'minRadius', value: Number.POSITIVE_INFINITY },
     );
     m.rules.severities.push({ rule: 'typo-rule', severity: 'error' });
     m.inlets[0]!.rules.suppressions.push({ rule: 'starved-inlet', reason: 'x' }, { rule: 'tee-branch-entry', reason: 'old' });
@@ -136,7 +136,8 @@ describe('RULES table', () => {
         const [low, high] = p.range ?? [0, Infinity];
         expect(p.default).toBeGreaterThanOrEqual(low);
         expect(p.default).toBeLessThanOrEqual(high);
-        expect(p.name).toMatch(/^[a-z]+(-[a-z]+)*$/);
+        // camelCase in the engine; files write it kebab-case (the language converts).
+        expect(p.name).toMatch(/^[a-z]+([A-Z][a-z]+)*$/);
       }
     }
   });

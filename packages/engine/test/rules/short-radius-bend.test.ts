@@ -23,7 +23,7 @@ describe('short-radius-bend', () => {
   });
   it('uses a per-pipe min-radius over the system one', () => {
     const p = pipe('p', 'plant', 'a', { fittings: [bend(1.5)] });
-    p.rules.settings.push({ rule: 'short-radius-bend', parameter: 'min-radius', value: 2 });
+    p.rules.settings.push({ rule: 'short-radius-bend', parameter: 'minRadius', value: 2 });
     const q = pipe('q', 'a', 'b', { fittings: [bend(1.5)] });
     const f = run(system({ pipes: [p, q] }));
     expect(f.map((x) => x.element.name)).toEqual(['p']);

@@ -53,12 +53,12 @@ describe('slow-carrying-velocity thresholds', () => {
     expect(run(m, analysis({ pipes: [pipeAnalysis(riser, { minVelocityMPerS: 3000 * FPM })] }))).toHaveLength(1);
   });
 
-  it('takes the system setting `horizontal 4000 fpm` and a per-pipe setting over it', () => {
+  it('takes the system setting `min-velocity 4000 fpm` and a per-pipe setting over it', () => {
     const p = pipe('main', 'plant', 'a', { sizeIn: 4 });
     const m = system({ pipes: [p] });
-    m.rules.settings.push({ rule: 'slow-carrying-velocity', parameter: 'horizontal', value: 4000 * FPM });
+    m.rules.settings.push({ rule: 'slow-carrying-velocity', parameter: 'minVelocity', value: 4000 * FPM });
     expect(run(m, one(p, 3800 * FPM))).toHaveLength(1);
-    p.rules.settings.push({ rule: 'slow-carrying-velocity', parameter: 'horizontal', value: 3000 * FPM });
+    p.rules.settings.push({ rule: 'slow-carrying-velocity', parameter: 'minVelocity', value: 3000 * FPM });
     expect(run(m, one(p, 3800 * FPM))).toEqual([]);
   });
 

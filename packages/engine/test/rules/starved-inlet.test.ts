@@ -35,7 +35,7 @@ describe('starved-inlet', () => {
   });
   it('lets an inlet threshold override the tool kind', () => {
     const i = inlet('c4', 'a');
-    i.rules.settings.push({ rule: 'starved-inlet', parameter: 'needs', value: 2 * INHG });
+    i.rules.settings.push({ rule: 'starved-inlet', parameter: 'requiredVacuum', value: 2 * INHG });
     expect(run(system({ inlets: [i] }), worst(2.5 * INHG, 3 * INHG))).toEqual([]);
   });
 });
