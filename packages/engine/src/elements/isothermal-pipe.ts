@@ -98,7 +98,8 @@ export function isothermalFlow(pipe: IsothermalPipe, p1: number, p2: number): Is
     for (let i = 0; i < 200 && h(hi).value < 0; i++) hi *= 2;
     // Start from the turbulent estimate with f L/D ~ 0.02 L/D (common practice), inside the bracket.
     const guess = Math.sqrt(c / (kq + (0.02 * pipe.lengthM) / pipe.diameterM));
-    m = solveBracketed(h, 0, hi, guess, { relTol: 1e-14 });
+    // H(0) = -c < 0 and H(hi) >= 0: the signs are known, so the solver need not evaluate the ends.
+    m = solveBracketed(h, 0, hi, guess, { relTol: 1e-14, rising: true });
   }
 
   const at = h(m);
@@ -129,7 +130,7 @@ function chokedFlow(pipe: IsothermalPipe, d: Derived, p1: number): IsothermalFlo
   // Phi > 0 for small m (y ~ 1/m^2 outgrows the laminar 1/m), Phi(sonic) = -Kt < 0.
   let lo = sonic * 1e-3;
   for (let i = 0; i < 60 && phi(lo).value <= 0; i++) lo *= 1e-3;
-  const m = solveBracketed(phi, lo, sonic, 0.5 * sonic, { relTol: 1e-14, logBisection: true });
+  const m = solveBracketed(phi, lo, sonic, 0.5 * sonic, { relTol: 1e-14, logBisection: true, rising: false });
   const at = phi(m);
   const y = (sonic * sonic) / (m * m);
   const dPhiDp1 = (2 * (y - 1)) / p1;
@@ -169,6 +170,6 @@ export function isothermalOutletPressure(pipe: IsothermalPipe, p1: number, m: nu
   if (pStar >= p1 || f(Math.max(pStar, Number.MIN_VALUE)).value < 0) {
     return { ok: false, reason: 'choked', maxMassFlowKgPerS: chokedFlow(pipe, d, p1).massFlowKgPerS };
   }
-  const p2 = solveBracketed(f, Math.max(pStar, Number.MIN_VALUE), p1, p1 - g2rt * kt / (2 * p1), { relTol: 1e-15 });
+  const p2 = solveBracketed(f, Math.max(pStar, Number.MIN_VALUE), p1, p1 - (g2rt * kt) / (2 * p1), { relTol: 1e-15, rising: false });
   return { ok: true, outletPressurePa: p2 };
 }

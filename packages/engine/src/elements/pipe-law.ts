@@ -109,7 +109,7 @@ export function pipeLaw(params: PipeLawParams): TwoPortLaw {
         return out;
       }
       const r = isothermalFlow(pipe, b, a);
-      const out: PortFlow = { massFlowKgPerS: -r.massFlowKgPerS, dFlowDPa: -r.dFlowDP2, dFlowDPb: -r.dFlowDP1 };
+      const out: PortFlow = { massFlowKgPerS: 0 - r.massFlowKgPerS, dFlowDPa: 0 - r.dFlowDP2, dFlowDPb: 0 - r.dFlowDP1 }; // 0 - x: no -0
       if (r.choked) out.limited = 'choked';
       return out;
     },

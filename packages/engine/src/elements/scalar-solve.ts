@@ -14,13 +14,15 @@ export interface SolveOptions {
   absTol?: number;
   /** Iteration cap (default 200). */
   maxIterations?: number;
+  /** fn rises through the root (fn(lo) < 0 < fn(hi)) or falls; when given, the ends are not evaluated. */
+  rising?: boolean;
   /** Take bisection steps in log(x) (for positive brackets spanning decades). */
   logBisection?: boolean;
 }
 
 /**
  * Root of `fn` in [lo, hi], where fn(lo) and fn(hi) have opposite signs (or
- * one is zero). Starts from x0 (clamped into the bracket). Returns the best
+ * one is zero; with `rising` given the caller vouches for the signs). Starts from x0 (clamped into the bracket). Returns the best
  * estimate after convergence or the iteration cap; never NaN for a finite
  * bracket.
  */
@@ -30,11 +32,16 @@ export function solveBracketed(fn: ValueAndSlope, lo: number, hi: number, x0: nu
   const maxIterations = options.maxIterations ?? 200;
   let a = lo;
   let b = hi;
-  const fa = fn(a).value;
-  if (fa === 0) return a;
-  const fb = fn(b).value;
-  if (fb === 0) return b;
-  const rising = fb > 0; // sign of fn at b; fn(a) has the other sign
+  let rising: boolean;
+  if (options.rising !== undefined) {
+    rising = options.rising;
+  } else {
+    const fa = fn(a).value;
+    if (fa === 0) return a;
+    const fb = fn(b).value;
+    if (fb === 0) return b;
+    rising = fb > 0; // sign of fn at b; fn(a) has the other sign
+  }
   let x = Number.isFinite(x0) ? Math.min(b, Math.max(a, x0)) : 0.5 * (a + b);
   for (let i = 0; i < maxIterations; i++) {
     const { value, slope } = fn(x);

@@ -125,7 +125,7 @@ export function toolLaw(law: ToolLaw, ambientPa: number, temperatureK: number): 
           return withLimit({ massFlowKgPerS: n.m, dFlowDPa: n.dUp, dFlowDPb: n.dDown }, n.choked ? 'choked' : undefined);
         }
         const n = nozzle(kFactor, b, a);
-        return withLimit({ massFlowKgPerS: -n.m, dFlowDPa: -n.dDown, dFlowDPb: -n.dUp }, n.choked ? 'choked' : undefined);
+        return withLimit({ massFlowKgPerS: 0 - n.m, dFlowDPa: 0 - n.dDown, dFlowDPb: 0 - n.dUp }, n.choked ? 'choked' : undefined);
       },
     };
   }
