@@ -3,7 +3,7 @@
  */
 import { STANDARD_PRESSURE_PA } from './standard-air.js';
 
-// Troposphere, standard atmosphere: ASHRAE Handbook Fundamentals (2017) ch. 1, eq. 3.
+// Troposphere, standard atmosphere: ASHRAE Handbook Fundamentals, ch. 1 (psychrometrics).
 const LAPSE_COEFFICIENT_PER_M = 2.25577e-5;
 const EXPONENT = 5.25588;
 /** Lowest and highest elevation the formula is used for, m (Dead Sea shore ~ -430 m; tropopause 11 km). */

@@ -3,6 +3,7 @@
  * velocity pressure. Several published data sets are given, each with its
  * source; `bendLossCoefficient` is the one the engine uses by default.
  */
+import type { Fitting } from '../../network/model.js';
 import { lookup, type Table, toDegrees } from './table-lookup.js';
 
 /**
@@ -192,4 +193,20 @@ export function bendLossCoefficient(angleRad: number, radiusRatio: number, diame
     k90 = K90_MAX + ((atHalf - K90_MAX) * rd) / 0.5;
   }
   return k90 * elbowAngleFactor(angleRad);
+}
+
+/**
+ * Sum of K for the bends among a pipe's fittings, each bend K x its count
+ * (ASHRAE practice: fitting losses add). Reducers are skipped: their K
+ * needs the neighbouring diameter (area-changes.ts). Non-finite or negative
+ * counts count as 0.
+ */
+export function bendFittingsK(fittings: readonly Fitting[], diameterM: number): number {
+  let sum = 0;
+  for (const f of fittings) {
+    if (f.kind !== 'bend') continue;
+    const count = Number.isFinite(f.count) && f.count > 0 ? f.count : 0;
+    sum += count * bendLossCoefficient(f.angleRad, f.radiusRatio, diameterM);
+  }
+  return sum;
 }

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import {
   acgihElbowK,
+  bendFittingsK,
   bendLossCoefficient,
   craneBend90K,
   craneFullyTurbulentFactor,
@@ -108,5 +109,24 @@ describe('bendLossCoefficient (the engine default)', () => {
     }
     expect(craneBend90K(1.5, Number.NaN)).toBe(0);
     expect(Number.isFinite(craneFullyTurbulentFactor(0))).toBe(true);
+  });
+});
+
+describe('bendFittingsK', () => {
+  it('adds bend K x count, skips reducers and bad counts', () => {
+    const k90 = bendLossCoefficient(deg(90), 1.5, 0.1);
+    const k45 = bendLossCoefficient(deg(45), 1.5, 0.1);
+    expect(
+      bendFittingsK(
+        [
+          { kind: 'bend', angleRad: deg(90), count: 2, radiusRatio: 1.5 },
+          { kind: 'bend', angleRad: deg(45), count: 1, radiusRatio: 1.5 },
+          { kind: 'reducer' },
+          { kind: 'bend', angleRad: deg(90), count: Number.NaN, radiusRatio: 1.5 },
+        ],
+        0.1,
+      ),
+    ).toBeCloseTo(2 * k90 + k45, 12);
+    expect(bendFittingsK([], 0.1)).toBe(0);
   });
 });
