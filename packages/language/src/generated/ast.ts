@@ -357,7 +357,7 @@ export function isDust(item: unknown): item is Dust {
 
 /**
  * A rule setting on one element:
- * `threshold slow-carrying-velocity horizontal 3500 fpm`, or acceptance of a
+ * `threshold slow-carrying-velocity min-velocity 3500 fpm`, or acceptance of a
  * known finding with a written reason: `accept short-radius-bend because "existing fitting"`.
  */
 export type ElementRule = Accept | Threshold;
@@ -913,7 +913,7 @@ export function isRoom(item: unknown): item is Room {
 
 /**
  * A system-wide rule setting: a threshold, a severity, or `off` with a reason.
- * `rule slow-carrying-velocity horizontal 4000 fpm`
+ * `rule slow-carrying-velocity min-velocity 4000 fpm`
  * `rule short-radius-bend severity info`
  * `rule missing-cleanout off because "cleanouts are shown on the mechanical drawings"`
  */
@@ -921,7 +921,7 @@ export interface RuleLine extends langium.AstNode {
     readonly $container: System;
     readonly $type: 'RuleLine';
     off: boolean;
-    parameter?: string;
+    parameter?: Name;
     reason?: string;
     rule: string;
     severity?: 'error' | 'info' | 'warning';
@@ -1140,7 +1140,7 @@ export function isTestOrifice(item: unknown): item is TestOrifice {
 export interface Threshold extends langium.AstNode {
     readonly $container: Inlet | Pipe;
     readonly $type: 'Threshold';
-    parameter: string;
+    parameter: Name;
     rule: string;
     value: Quantity;
 }

@@ -45,6 +45,10 @@ function convert(value: number, unit: string | undefined, expectation: Expectati
     }
     return { ok: true, si: value };
   }
+  if (expectation.dimension === 'fraction' && !unit) {
+    // A share may be written as a plain number (0.55) or with % (55 %).
+    return { ok: true, si: value };
+  }
   if (expectation.dimension === 'radius' && unit === DIAMETERS_UNIT) {
     return { ok: true, si: value, inDiameters: true };
   }
