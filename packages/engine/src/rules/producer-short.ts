@@ -51,7 +51,7 @@ export const producerShort: Rule = {
         ruleFinding(
           producerShort,
           { kind, name, ...(kind === 'producer' ? { property: 'model' } : {}) },
-          `Producer '${name}' cannot deliver the demand: with ${f.openInlets.map((n) => `'${n}'`).join(', ') || 'the design inlets'} open there is no operating point (${f.message}). ${advice}`,
+          `${kind === 'producer' ? `Producer '${name}'` : 'The producer'} cannot deliver the demand: with ${f.openInlets.map((n) => `'${n}'`).join(', ') || 'the design inlets'} open there is no operating point (${f.message}). ${advice}`,
           { related: f.openInlets.map((n) => ({ element: { kind: 'inlet' as const, name: n }, message: 'open in the case that failed' })) },
         ),
       );

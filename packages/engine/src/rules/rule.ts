@@ -31,7 +31,7 @@ export interface RuleParameter {
   source: string;
   /** One line on what the parameter does. */
   description: string;
-  /** Smallest and largest sensible value; a setting outside is ignored and reported. */
+  /** Smallest and largest sensible value (our own sanity bounds, not design limits); a setting outside is ignored and reported. */
   range?: readonly [number, number];
 }
 

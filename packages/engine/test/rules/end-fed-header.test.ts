@@ -36,7 +36,7 @@ describe('end-fed-header', () => {
     const f = run(model, header({ a: 5, b: 4.5, c: 3.2, d: 2.6 }));
     expect(f).toHaveLength(1);
     expect(f[0]!.severity).toBe('info');
-    expect(f[0]!.message).toMatch(/2\.6 inHg at 'd'.*4\.5 inHg at near-end 'b'/);
+    expect(f[0]!.message).toMatch(/2\.60 inHg at 'd'.*4\.50 inHg at near-end 'b'/);
     expect(f[0]!.fix!['feedAt']).toEqual({ kind: 'on-pipe', pipe: 'h2', distanceM: 0 });
     expect(f[0]!.related?.map((r) => r.element.name)).toEqual(['d', 'b']);
   });

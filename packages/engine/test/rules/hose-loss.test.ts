@@ -26,7 +26,7 @@ describe('hose-loss', () => {
   it('flags 11 inHg lost of 25 (44 %) by the 10 inHg absolute limit', () => {
     const f = run(m, withLoss(25, 11));
     expect(f).toHaveLength(1);
-    expect(f[0]!.message).toMatch(/more than 10 inHg/);
+    expect(f[0]!.message).toMatch(/more than 10\.0 inHg/);
   });
   it('passes 4 of 10 inHg', () => {
     expect(run(m, withLoss(10, 4))).toEqual([]);

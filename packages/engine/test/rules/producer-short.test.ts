@@ -15,7 +15,7 @@ describe('producer-short', () => {
     expect(f).toHaveLength(1);
     expect(f[0]!.severity).toBe('error');
     expect(f[0]!.element).toEqual({ kind: 'producer', name: 'exh', property: 'model' });
-    expect(f[0]!.message).toMatch(/200 scfm at 10 inHg.*180 scfm/);
+    expect(f[0]!.message).toMatch(/200 scfm at 10\.0 inHg.*180 scfm/);
   });
   it('flags a case past the end of the curve', () => {
     const f = run(m, analysis({ producers: [producerPoint('exh', { marginFraction: null, limited: 'curve-end', flowStdM3PerS: 300 * CFM, vacuumPa: 2 * INHG })] }));

@@ -20,7 +20,7 @@ describe('starved-inlet', () => {
     expect(f[0]!.element).toEqual({ kind: 'inlet', name: 'c4', property: 'name' });
     expect(f[0]!.related?.map((r) => r.element.name)).toEqual(['c5', 'd1']);
     expect(f[0]!.fix!['shortfallPa'] as number).toBeCloseTo(0.5 * INHG, 6);
-    expect(f[0]!.message).toMatch(/2\.5 inHg.*3 inHg/);
+    expect(f[0]!.message).toMatch(/2\.50 inHg.*3\.00 inHg/);
   });
   it('passes a tool at or above its need', () => {
     expect(run(m, worst(3.5 * INHG, 3 * INHG))).toEqual([]);
