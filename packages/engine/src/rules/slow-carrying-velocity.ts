@@ -95,6 +95,8 @@ export const slowCarryingVelocity: Rule = {
 function checkSlow(model: SystemModel, analysis: SystemAnalysis, settings: RuleSettings): Finding[] {
   const units = model.displayUnits ?? 'imperial';
   const debris = DEBRIS_WORDS[model.design?.debris] ?? 'the debris';
+  // Settled combustible dust is a fuel deposit; NFPA 654 asks for a velocity that keeps it suspended.
+  const dustNote = model.dust?.combustible ? ', and settled combustible dust is a fire and explosion hazard (NFPA 654)' : '';
   const findings: Finding[] = [];
   for (const pipe of model.pipes ?? []) {
     const pa = analysis.pipes?.find((p) => p.name === pipe.name);
@@ -141,7 +143,7 @@ function checkSlow(model: SystemModel, analysis: SystemAnalysis, settings: RuleS
       ruleFinding(
         slowCarryingVelocity,
         { kind: 'pipe', name: pipe.name, property: 'size' },
-        `Pipe '${pipe.name}' runs at ${formatVelocity(v, units)}${who}, below the ${formatVelocity(need, units)} needed to carry ${debris} in ${where}: debris settles and plugs it. ${advice}`,
+        `Pipe '${pipe.name}' runs at ${formatVelocity(v, units)}${who}, below the ${formatVelocity(need, units)} needed to carry ${debris} in ${where}: debris settles and plugs it${dustNote}. ${advice}`,
         {
           related: pa.minVelocityInlet
             ? [{ element: { kind: 'inlet', name: pa.minVelocityInlet }, message: 'the inlet whose lone operator gives the lowest velocity' }]

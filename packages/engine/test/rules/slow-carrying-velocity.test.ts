@@ -62,6 +62,13 @@ describe('slow-carrying-velocity thresholds', () => {
     expect(run(m, one(p, 3800 * FPM))).toEqual([]);
   });
 
+  it('adds the NFPA 654 note on combustible dust', () => {
+    const p = pipe('main', 'plant', 'a', { sizeIn: 4 });
+    const m = system({ pipes: [p], dust: { combustible: true, metal: false, bondedAndGrounded: true } });
+    expect(run(m, one(p, 3000 * FPM))[0]!.message).toMatch(/NFPA 654/);
+    expect(run(system({ pipes: [p] }), one(p, 3000 * FPM))[0]!.message).not.toMatch(/NFPA/);
+  });
+
   it('skips pipes with no single-operator velocity', () => {
     const p = pipe('main', 'plant', 'a');
     expect(run(system({ pipes: [p] }), analysis({ pipes: [pipeAnalysis(p)] }))).toEqual([]);
