@@ -6,3 +6,4 @@ export { lowerSystem, type LoweredSystem } from './lowering/lower-system.js';
 export { SourceIndex } from './lowering/source-index.js';
 export { StructureCodes, type StructureCode } from './validation/codes.js';
 export * as Ast from './generated/ast.js';
+export { formatText } from './lsp/format-text.js';

@@ -14,6 +14,7 @@ import { VacnetScopeProvider } from './references/vacnet-scope-provider.js';
 import { VacnetLinker } from './references/vacnet-linker.js';
 import { registerValidationChecks, VacnetValidator } from './validation/vacnet-validator.js';
 import { VacnetDocumentValidator } from './validation/vacnet-document-validator.js';
+import { VacnetFormatter } from './lsp/vacnet-formatter.js';
 
 /** Services of our own, added to Langium's. */
 export interface VacnetAddedServices {
@@ -33,6 +34,9 @@ export const VacnetModule: Module<VacnetServices, PartialLangiumServices & Vacne
   validation: {
     VacnetValidator: () => new VacnetValidator(),
     DocumentValidator: (services) => new VacnetDocumentValidator(services),
+  },
+  lsp: {
+    Formatter: (services) => new VacnetFormatter(services),
   },
 };
 
