@@ -15,6 +15,7 @@ import { VacnetLinker } from './references/vacnet-linker.js';
 import { registerValidationChecks, VacnetValidator } from './validation/vacnet-validator.js';
 import { VacnetDocumentValidator } from './validation/vacnet-document-validator.js';
 import { VacnetFormatter } from './lsp/vacnet-formatter.js';
+import { VacnetCompletionProvider } from './lsp/vacnet-completion-provider.js';
 
 /** Services of our own, added to Langium's. */
 export interface VacnetAddedServices {
@@ -37,6 +38,7 @@ export const VacnetModule: Module<VacnetServices, PartialLangiumServices & Vacne
   },
   lsp: {
     Formatter: (services) => new VacnetFormatter(services),
+    CompletionProvider: (services) => new VacnetCompletionProvider(services),
   },
 };
 
