@@ -16,6 +16,7 @@ import { registerValidationChecks, VacnetValidator } from './validation/vacnet-v
 import { VacnetDocumentValidator } from './validation/vacnet-document-validator.js';
 import { VacnetFormatter } from './lsp/vacnet-formatter.js';
 import { VacnetCompletionProvider } from './lsp/vacnet-completion-provider.js';
+import { VacnetRenameProvider } from './lsp/vacnet-rename-provider.js';
 
 /** Services of our own, added to Langium's. */
 export interface VacnetAddedServices {
@@ -39,6 +40,7 @@ export const VacnetModule: Module<VacnetServices, PartialLangiumServices & Vacne
   lsp: {
     Formatter: (services) => new VacnetFormatter(services),
     CompletionProvider: (services) => new VacnetCompletionProvider(services),
+    RenameProvider: (services) => new VacnetRenameProvider(services),
   },
 };
 
