@@ -17,6 +17,7 @@ import { VacnetDocumentValidator } from './validation/vacnet-document-validator.
 import { VacnetFormatter } from './lsp/vacnet-formatter.js';
 import { VacnetCompletionProvider } from './lsp/vacnet-completion-provider.js';
 import { VacnetRenameProvider } from './lsp/vacnet-rename-provider.js';
+import { VacnetDocumentSymbolProvider } from './lsp/vacnet-document-symbol-provider.js';
 
 /** Services of our own, added to Langium's. */
 export interface VacnetAddedServices {
@@ -41,6 +42,7 @@ export const VacnetModule: Module<VacnetServices, PartialLangiumServices & Vacne
     Formatter: (services) => new VacnetFormatter(services),
     CompletionProvider: (services) => new VacnetCompletionProvider(services),
     RenameProvider: (services) => new VacnetRenameProvider(services),
+    DocumentSymbolProvider: () => new VacnetDocumentSymbolProvider(),
   },
 };
 
