@@ -18,6 +18,7 @@ import { VacnetFormatter } from './lsp/vacnet-formatter.js';
 import { VacnetCompletionProvider } from './lsp/vacnet-completion-provider.js';
 import { VacnetRenameProvider } from './lsp/vacnet-rename-provider.js';
 import { VacnetDocumentSymbolProvider } from './lsp/vacnet-document-symbol-provider.js';
+import { VacnetFoldingRangeProvider } from './lsp/vacnet-folding-range-provider.js';
 
 /** Services of our own, added to Langium's. */
 export interface VacnetAddedServices {
@@ -43,6 +44,7 @@ export const VacnetModule: Module<VacnetServices, PartialLangiumServices & Vacne
     CompletionProvider: (services) => new VacnetCompletionProvider(services),
     RenameProvider: (services) => new VacnetRenameProvider(services),
     DocumentSymbolProvider: () => new VacnetDocumentSymbolProvider(),
+    FoldingRangeProvider: (services) => new VacnetFoldingRangeProvider(services),
   },
 };
 
