@@ -19,6 +19,7 @@ import { VacnetCompletionProvider } from './lsp/vacnet-completion-provider.js';
 import { VacnetRenameProvider } from './lsp/vacnet-rename-provider.js';
 import { VacnetDocumentSymbolProvider } from './lsp/vacnet-document-symbol-provider.js';
 import { VacnetFoldingRangeProvider } from './lsp/vacnet-folding-range-provider.js';
+import { VacnetSemanticTokenProvider } from './lsp/vacnet-semantic-token-provider.js';
 
 /** Services of our own, added to Langium's. */
 export interface VacnetAddedServices {
@@ -45,6 +46,7 @@ export const VacnetModule: Module<VacnetServices, PartialLangiumServices & Vacne
     RenameProvider: (services) => new VacnetRenameProvider(services),
     DocumentSymbolProvider: () => new VacnetDocumentSymbolProvider(),
     FoldingRangeProvider: (services) => new VacnetFoldingRangeProvider(services),
+    SemanticTokenProvider: (services) => new VacnetSemanticTokenProvider(services),
   },
 };
 
