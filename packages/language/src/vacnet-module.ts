@@ -20,6 +20,7 @@ import { VacnetRenameProvider } from './lsp/vacnet-rename-provider.js';
 import { VacnetDocumentSymbolProvider } from './lsp/vacnet-document-symbol-provider.js';
 import { VacnetFoldingRangeProvider } from './lsp/vacnet-folding-range-provider.js';
 import { VacnetSemanticTokenProvider } from './lsp/vacnet-semantic-token-provider.js';
+import { VacnetDocumentLinkProvider } from './lsp/vacnet-document-link-provider.js';
 
 /** Services of our own, added to Langium's. */
 export interface VacnetAddedServices {
@@ -47,6 +48,7 @@ export const VacnetModule: Module<VacnetServices, PartialLangiumServices & Vacne
     DocumentSymbolProvider: () => new VacnetDocumentSymbolProvider(),
     FoldingRangeProvider: (services) => new VacnetFoldingRangeProvider(services),
     SemanticTokenProvider: (services) => new VacnetSemanticTokenProvider(services),
+    DocumentLinkProvider: () => new VacnetDocumentLinkProvider(),
   },
 };
 
