@@ -21,6 +21,7 @@ import { VacnetDocumentSymbolProvider } from './lsp/vacnet-document-symbol-provi
 import { VacnetFoldingRangeProvider } from './lsp/vacnet-folding-range-provider.js';
 import { VacnetSemanticTokenProvider } from './lsp/vacnet-semantic-token-provider.js';
 import { VacnetDocumentLinkProvider } from './lsp/vacnet-document-link-provider.js';
+import { VacnetHoverProvider } from './lsp/vacnet-hover-provider.js';
 
 /** Services of our own, added to Langium's. */
 export interface VacnetAddedServices {
@@ -49,6 +50,7 @@ export const VacnetModule: Module<VacnetServices, PartialLangiumServices & Vacne
     FoldingRangeProvider: (services) => new VacnetFoldingRangeProvider(services),
     SemanticTokenProvider: (services) => new VacnetSemanticTokenProvider(services),
     DocumentLinkProvider: () => new VacnetDocumentLinkProvider(),
+    HoverProvider: (services) => new VacnetHoverProvider(services),
   },
 };
 

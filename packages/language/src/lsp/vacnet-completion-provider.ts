@@ -18,6 +18,7 @@ import {
 import { isQuantity, type Quantity } from '../generated/ast.js';
 import { expectationFor, type Expectation } from '../semantics/quantity-expectations.js';
 import { findRule, writtenParameterName } from '../semantics/rule-parameters.js';
+import { ELEMENT_NOUNS } from './element-nouns.js';
 
 /** The unit word for a bend radius in multiples of the pipe diameter (`radius 1.5 D`). */
 const DIAMETERS_UNIT = 'D';
@@ -101,7 +102,7 @@ export class VacnetCompletionProvider extends DefaultCompletionProvider {
   /** Says what a proposed name is in trade words, and which file it comes from when it is not this one. */
   protected override createReferenceCompletionItem(description: AstNodeDescription, refInfo: ReferenceInfo, context: CompletionContext): CompletionValueItem {
     const item = super.createReferenceCompletionItem(description, refInfo, context);
-    const noun = NOUNS[description.type] ?? description.type;
+    const noun = ELEMENT_NOUNS[description.type] ?? description.type;
     const elsewhere = description.documentUri.toString() !== context.document.uri.toString();
     return { ...item, detail: elsewhere ? `${noun} · ${UriUtils.basename(description.documentUri)}` : noun };
   }
@@ -144,13 +145,6 @@ export class VacnetCompletionProvider extends DefaultCompletionProvider {
     return { items, only: false };
   }
 }
-
-/** What each kind of named thing is called in the trade. */
-const NOUNS: Record<string, string> = {
-  Plant: 'plant', PointDecl: 'point', Pipe: 'pipe', Inlet: 'inlet', Scenario: 'scenario',
-  PipeSpec: 'pipe spec', HoseKind: 'hose', ToolKind: 'tool',
-  ProducerModel: 'producer model', SeparatorModel: 'separator model', FilterModel: 'filter model',
-};
 
 /** The units a place accepts, each with what it measures. */
 function unitsFor(expectation: Expectation): { unit: string; detail: string }[] {
