@@ -27,6 +27,8 @@ export interface AnalysisOptions {
   testOrificeDiameterM?: number;
   /** Discharge coefficient of the test orifice (default 0.61, sharp-edged). */
   testOrificeDischargeCoefficient?: number;
+  /** Also predict each inlet's gauge reading with its test orifice alone (one more solve per inlet). */
+  commissioningAlone?: boolean;
   /** Skip parts of the analysis (for editors that want a quick answer). */
   skip?: {
     worstCase?: boolean;
@@ -235,7 +237,7 @@ export interface CommissioningPrediction {
   flowStdM3PerS: number;
   /** The inlets holding orifices, this inlet first. */
   openInlets: ElementName[];
-  /** The same orifice with only this inlet open. */
+  /** The same orifice with only this inlet open (when asked for: `commissioningAlone`). */
   aloneGaugeVacuumPa: number | null;
 }
 

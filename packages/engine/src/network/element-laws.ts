@@ -5,7 +5,7 @@
  * and marks the element invalid.
  */
 import type { TwoPortLaw } from '../elements/two-port-law.js';
-import type { HoseKind, ProducerModel, RatedLoss, SiteAir, ToolLaw } from './model.js';
+import type { HoseKind, Junction, ProducerUnit, RatedLoss, SiteAir, ToolLaw } from './model.js';
 
 export interface PipeLawInput {
   diameterM: number;
@@ -26,12 +26,17 @@ export interface ElementLaws {
   tool(law: ToolLaw, ambientPa: number, temperatureK: number): TwoPortLaw;
   /** Separator, filter: port a = inlet, port b = toward the producer. */
   ratedLoss(rated: RatedLoss, temperatureK: number): TwoPortLaw;
-  /** Producer: port a = producer inlet, port b = atmosphere. */
-  producer(model: ProducerModel, site: SiteAir, exhaust?: RatedLoss): TwoPortLaw;
+  /** Producer with its exhaust line: port a = producer inlet, port b = atmosphere. */
+  producer(unit: ProducerUnit, site: SiteAir): TwoPortLaw;
+  /**
+   * The largest flow the producer's curve states, as mass flow at a producer
+   * inlet pressure (kg/s): a case that needs more is beyond the curve.
+   */
+  producerCurveEndFlow?(unit: ProducerUnit, inletPressurePa: number, temperatureK: number): number;
   /** Loss coefficient of a bend on its own velocity pressure. */
   bendK(angleRad: number, radiusRatio: number, diameterM: number): number;
   /** Entry loss of a branch joining its parent (on the branch velocity pressure). */
-  junctionK(junction: import('./model.js').Junction): number;
+  junctionK(junction: Junction): number;
   /**
    * Loss of a size change where air passes from a pipe of `upstreamDiameterM`
    * into its parent of `downstreamDiameterM`, on the upstream pipe's velocity

@@ -12,6 +12,7 @@
  * Converged when every node's imbalance is below `tolerance` x total flow.
  */
 import type { TwoPortLaw } from '../elements/two-port-law.js';
+import type { LawLimit } from './solve-types.js';
 import { analyseLU, factorLU, offIndex, solveLU, type SymbolicLU } from './sparse-lu.js';
 import { forestOrder, solveForest, type ForestOrder } from './tree-elimination.js';
 
@@ -32,11 +33,13 @@ export interface NewtonOptions {
 }
 
 export type NewtonOutcome =
-  | { status: 'converged'; iterations: number; flows: Float64Array; imbalanceFraction: number; evaluations: number }
+  | { status: 'converged'; iterations: number; flows: Float64Array; limits: (LawLimit | undefined)[]; imbalanceFraction: number; evaluations: number }
   | {
       status: 'singular' | 'stalled' | 'max-iterations' | 'bad-law';
       iterations: number;
       flows: Float64Array;
+      /** The limit each law reported at the last point evaluated. */
+      limits: (LawLimit | undefined)[];
       imbalanceFraction: number;
       evaluations: number;
       /** Local element index whose law returned a non-finite flow, for 'bad-law'. */
@@ -180,7 +183,9 @@ export function newtonSolve(sys: LocalSystem, p: Float64Array, backend: LinearBa
   const { sAA, sAB, sBA, sBB } = backend;
   let evaluations = 0;
 
-  const evaluate = (pp: Float64Array, out: Float64Array, q: Float64Array, jac: Float64Array | null): Evaluation => {
+  let limits: (LawLimit | undefined)[] = new Array(m);
+  let trialLimits: (LawLimit | undefined)[] = new Array(m);
+  const evaluate = (pp: Float64Array, out: Float64Array, q: Float64Array, jac: Float64Array | null, lim: (LawLimit | undefined)[]): Evaluation => {
     out.fill(0);
     if (jac) jac.fill(0);
     let fixedSum = 0;
@@ -192,6 +197,7 @@ export function newtonSolve(sys: LocalSystem, p: Float64Array, backend: LinearBa
       const pa = a >= 0 ? pp[a]! : fa[e]!;
       const pb = b >= 0 ? pp[b]! : fb[e]!;
       const r = laws[e]!.flow(pa, pb);
+      lim[e] = r.limited;
       const flow = r.massFlowKgPerS;
       if (!Number.isFinite(flow)) {
         badElement = e;
@@ -237,30 +243,30 @@ export function newtonSolve(sys: LocalSystem, p: Float64Array, backend: LinearBa
 
   const fraction = (ev: Evaluation): number => (ev.total > 0 ? ev.maxImbalance / ev.total : ev.maxImbalance > 0 ? Infinity : 0);
 
-  let ev = evaluate(p, F, flows, values);
+  let ev = evaluate(p, F, flows, values, limits);
   let iterations = 0;
   for (;;) {
     if (ev.badElement >= 0) {
-      return { status: 'bad-law', iterations, flows, imbalanceFraction: fraction(ev), evaluations, element: ev.badElement };
+      return { status: 'bad-law', iterations, flows, limits, imbalanceFraction: fraction(ev), evaluations, element: ev.badElement };
     }
     // Converged: imbalance below tolerance of total flow (or nothing flows and
     // nothing is out of balance), node by node down to the rounding floor.
     if (ev.maxImbalance <= opts.tolerance * ev.total || ev.maxImbalance === 0 || ev.withinFloor) {
-      return { status: 'converged', iterations, flows, imbalanceFraction: fraction(ev), evaluations };
+      return { status: 'converged', iterations, flows, limits, imbalanceFraction: fraction(ev), evaluations };
     }
     if (iterations >= opts.maxIterations) {
-      return { status: 'max-iterations', iterations, flows, imbalanceFraction: fraction(ev), evaluations };
+      return { status: 'max-iterations', iterations, flows, limits, imbalanceFraction: fraction(ev), evaluations };
     }
     iterations++;
     for (let i = 0; i < n; i++) step[i] = -F[i]!;
     if (!backend.solve(values, step)) {
-      return { status: 'singular', iterations, flows, imbalanceFraction: fraction(ev), evaluations };
+      return { status: 'singular', iterations, flows, limits, imbalanceFraction: fraction(ev), evaluations };
     }
     // Fraction to the boundary: keep every pressure above a share of its value.
     let alpha = 1;
     for (let i = 0; i < n; i++) {
       const d = step[i]!;
-      if (!Number.isFinite(d)) return { status: 'singular', iterations, flows, imbalanceFraction: fraction(ev), evaluations };
+      if (!Number.isFinite(d)) return { status: 'singular', iterations, flows, limits, imbalanceFraction: fraction(ev), evaluations };
       if (d < 0) {
         const limit = ((1 - MIN_PRESSURE_RATIO_PER_STEP) * p[i]!) / -d;
         if (limit < alpha) alpha = limit;
@@ -270,7 +276,7 @@ export function newtonSolve(sys: LocalSystem, p: Float64Array, backend: LinearBa
     let trialEv: Evaluation | null = null;
     for (let bt = 0; bt <= MAX_BACKTRACKS; bt++) {
       for (let i = 0; i < n; i++) trialP[i] = p[i]! + alpha * step[i]!;
-      trialEv = evaluate(trialP, trialF, trialFlows, trialValues);
+      trialEv = evaluate(trialP, trialF, trialFlows, trialValues, trialLimits);
       if (trialEv.badElement < 0 && trialEv.norm2 <= (1 - 2 * ARMIJO_C * alpha) * ev.norm2) {
         accepted = true;
         break;
@@ -280,13 +286,14 @@ export function newtonSolve(sys: LocalSystem, p: Float64Array, backend: LinearBa
     if (!accepted) {
       // No decrease along the Newton direction even for tiny steps: stuck at a
       // kink or a limit of some law.
-      return { status: 'stalled', iterations, flows, imbalanceFraction: fraction(ev), evaluations };
+      return { status: 'stalled', iterations, flows, limits, imbalanceFraction: fraction(ev), evaluations };
     }
     // Take the trial point; its residual and Jacobian are already assembled.
     p.set(trialP);
     [F, trialF] = [trialF, F];
     [flows, trialFlows] = [trialFlows, flows];
     [values, trialValues] = [trialValues, values];
+    [limits, trialLimits] = [trialLimits, limits];
     ev = trialEv!;
   }
 }

@@ -10,8 +10,8 @@
  * the outcome. Never throws and never returns NaN: failures are typed.
  */
 import { linearBackend, newtonSolve, type LocalSystem } from './newton.js';
-import { defaultInitialPressures } from './initial-guess.js';
-import type { SolveEffort, SolveFailure, SolveOptions, SolveResult, SolvedState, SolverNetwork } from './solve-types.js';
+import { fillInitialPressures } from './initial-guess.js';
+import type { LawLimit, SolveEffort, SolveFailure, NetworkSolveOptions, SolveResult, SolvedState, SolverNetwork } from './solve-types.js';
 import type { TwoPortLaw } from '../elements/two-port-law.js';
 
 /** Default relative mass-imbalance tolerance (ENGINEERING.md: 1e-9 of the total flow). */
@@ -26,7 +26,7 @@ const ZERO_PRESSURE_FRACTION = 1e-3;
 export function solveNetwork(
   net: SolverNetwork,
   active: ArrayLike<number>,
-  options: SolveOptions = {},
+  options: NetworkSolveOptions = {},
   effort?: SolveEffort,
 ): SolveResult {
   try {
@@ -41,7 +41,7 @@ export function solveNetwork(
   }
 }
 
-function solveInner(net: SolverNetwork, active: ArrayLike<number>, options: SolveOptions, effort?: SolveEffort): SolveResult {
+function solveInner(net: SolverNetwork, active: ArrayLike<number>, options: NetworkSolveOptions, effort?: SolveEffort): SolveResult {
   if (effort) effort.solves++;
   const tolerance = options.tolerance ?? DEFAULT_TOLERANCE;
   const maxIterations = options.maxIterations ?? DEFAULT_MAX_ITERATIONS;
@@ -231,18 +231,35 @@ function solveInner(net: SolverNetwork, active: ArrayLike<number>, options: Solv
     sys.laws[k] = net.laws[e]!;
   });
 
-  // --- starting pressures
-  const p = defaultInitialPressures(sys, maxFixed);
+  // --- starting pressures: the caller's guess where it has one, filled in elsewhere
+  const p = new Float64Array(n);
+  const known = new Uint8Array(n);
   const init = options.initialPressurePa;
   if (init) {
     for (let i = 0; i < n; i++) {
       const g = init[freeGlobal[i]!];
-      if (g !== undefined && Number.isFinite(g) && g > 0) p[i] = g;
+      if (g !== undefined && Number.isFinite(g) && g > 0) {
+        p[i] = g;
+        known[i] = 1;
+      }
     }
   }
+  const fillEvaluations = fillInitialPressures(sys, p, known, maxFixed);
+  if (effort) effort.elementEvaluations += fillEvaluations;
 
   const backend = linearBackend(sys);
-  const outcome = newtonSolve(sys, p, backend, { tolerance, maxIterations });
+  let outcome = newtonSolve(sys, p, backend, { tolerance, maxIterations });
+  if (outcome.status !== 'converged' && init) {
+    // A warm start from another case can lead Newton astray: try again cold.
+    const cold = new Float64Array(n);
+    const coldFill = fillInitialPressures(sys, cold, new Uint8Array(n), maxFixed);
+    if (effort) effort.elementEvaluations += coldFill;
+    const retry = newtonSolve(sys, cold, backend, { tolerance, maxIterations });
+    if (effort) effort.elementEvaluations += outcome.evaluations;
+    retry.iterations += outcome.iterations;
+    outcome = retry;
+    p.set(cold);
+  }
   if (effort) {
     effort.newtonIterations += outcome.iterations;
     effort.elementEvaluations += outcome.evaluations;
@@ -283,12 +300,16 @@ function solveInner(net: SolverNetwork, active: ArrayLike<number>, options: Solv
       failure: { cause: 'invalid-element', element: net.refs[e], message: 'element law gave no finite flow at these pressures' },
     };
   }
-  // Limits the laws report at the final point.
+  // Limits the laws report at the final point, and what each means here.
+  const classify =
+    net.classifyLimit ??
+    ((e: number, limit: LawLimit) => (limit === 'choked' ? 'choked' : limit === 'curve-end' && net.drives[e] ? 'infeasible-demand' : null));
   for (let k = 0; k < m; k++) {
+    const lim = outcome.limits[k];
+    if (!lim) continue;
     const pa = sys.la[k]! >= 0 ? p[sys.la[k]!]! : sys.fa[k]!;
     const pb = sys.lb[k]! >= 0 ? p[sys.lb[k]!]! : sys.fb[k]!;
-    const lim = sys.laws[k]!.flow(pa, pb).limited;
-    if (lim) limited.push({ element: sysElems[k]!, limit: lim });
+    limited.push({ element: sysElems[k]!, limit: lim, cause: classify(sysElems[k]!, lim, pa, pb, outcome.flows[k]!) });
   }
   let lowest = Infinity;
   let lowestNode = -1;
@@ -298,8 +319,8 @@ function solveInner(net: SolverNetwork, active: ArrayLike<number>, options: Solv
       lowestNode = freeGlobal[i]!;
     }
   }
-  const choked = limited.find((l) => l.limit === 'choked');
-  const curveEnd = limited.find((l) => l.limit === 'curve-end');
+  const choked = limited.find((l) => l.cause === 'choked');
+  const curveEnd = limited.find((l) => l.cause === 'infeasible-demand');
   const zeroPressure = n > 0 && lowest < ZERO_PRESSURE_FRACTION * maxFixed;
   const elementAtNode = (node: number) => {
     const e = sysElems.find((x) => net.elementA[x] === node || net.elementB[x] === node);

@@ -38,9 +38,17 @@ export interface SolverNetwork {
    * its fixed pressures, has no path for air.
    */
   drives: Uint8Array;
+  /**
+   * What a law's limit at the solution means for the case: a failure cause,
+   * or null when the limit is an acceptable state. Default: 'choked' ->
+   * choked; 'curve-end' on a driving element -> infeasible-demand; others null.
+   */
+  classifyLimit?: (element: number, limit: LawLimit, pa: number, pb: number, flowKgPerS: number) => SolveFailureCause | null;
 }
 
-export interface SolveOptions {
+export type LawLimit = 'choked' | 'curve-end' | 'relief';
+
+export interface NetworkSolveOptions {
   /** A starting pressure per node (indexed by node id, length nodeCount); NaN entries are ignored. */
   initialPressurePa?: Float64Array;
   /** Fixed pressures for this solve only (node id -> Pa), on top of the network's. */
@@ -74,7 +82,7 @@ export interface SolvedState {
   elements: Int32Array;
   flowKgPerS: Float64Array;
   /** Elements whose law reported a limit at the solution (relief, curve end...). */
-  limited: { element: number; limit: 'choked' | 'curve-end' | 'relief' }[];
+  limited: { element: number; limit: LawLimit; cause: SolveFailureCause | null }[];
   iterations: number;
   /** Largest node mass imbalance over the total flow at the end. */
   imbalanceFraction: number;
