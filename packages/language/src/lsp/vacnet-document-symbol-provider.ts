@@ -175,11 +175,12 @@ function before(a: Range['start'], b: Range['start']): boolean {
 }
 
 /** A symbol for a node; the selection is the name when there is one, else the node's first line. */
-function leaf(node: AstNode, name: string, kind: SymbolKind, detail: string | undefined, at: CstNode | undefined, children?: DocumentSymbol[]): DocumentSymbol | undefined {
+function leaf(node: AstNode, name: string | undefined, kind: SymbolKind, detail: string | undefined, at: CstNode | undefined, children?: DocumentSymbol[]): DocumentSymbol | undefined {
   const cst = node.$cstNode;
   if (!cst) return undefined;
   const symbol: DocumentSymbol = {
-    name: name.length > 0 ? name : '(unnamed)',
+    // A half-typed element has no name yet; the outline still shows it.
+    name: name && name.length > 0 ? name : '(unnamed)',
     kind,
     range: cst.range,
     selectionRange: (at ?? cst).range,
