@@ -13,6 +13,7 @@ import os from 'node:os';
 
 const GROUPS = {
   parse: './parse.mjs',
+  cli: './cli-start.mjs',
 };
 
 const resultsFile = new URL('./results.json', import.meta.url);
