@@ -61,7 +61,8 @@ export class VacnetFormatter extends AbstractFormatter {
   protected override doDocumentFormat(document: LangiumDocument, _options: FormattingOptions, range?: Range): TextEdit[] {
     const edits = this.layoutEdits(document);
     if (!range) return edits;
-    return edits.filter((edit) => edit.range.end.line >= range.start.line && edit.range.start.line <= range.end.line);
+    // The whitespace before a token belongs to the token's line: keep the edits that end on a line of the range.
+    return edits.filter((edit) => edit.range.end.line >= range.start.line && edit.range.end.line <= range.end.line);
   }
 
   /**

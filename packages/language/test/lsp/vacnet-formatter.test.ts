@@ -146,6 +146,18 @@ system "S" {
     });
   });
 
+  it('formats only the lines of a range when asked for a range', async () => {
+    await format({
+      before: `system "S" {\n      operators   2\n      debris   fine\n}\n`,
+      after: `system "S" {\n  operators 2\n      debris   fine\n}\n`,
+      range: { start: { line: 1, character: 0 }, end: { line: 1, character: 20 } },
+    });
+  });
+
+  it('keeps Windows line ends', () => {
+    expect(formatText('system "S" {\r\n   operators 2\r\n\r\n\r\n debris fine }')).toBe('system "S" {\r\n  operators 2\r\n\r\n  debris fine\r\n}\r\n');
+  });
+
   it('leaves a file with a syntax error as it is', async () => {
     const broken = `system "S" {\n      operators\n  pipe  x\n`;
     await format({ before: broken, after: broken });
