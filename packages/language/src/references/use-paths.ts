@@ -8,11 +8,11 @@ import type { Document } from '../generated/ast.js';
 export function usedUris(document: Document, documentUri: URI): URI[] {
   const base = UriUtils.dirname(documentUri);
   return document.uses
-    .filter((use) => typeof use.path === 'string' && use.path.length > 2)
+    .filter((use) => typeof use.path === 'string' && unquote(use.path).length > 0)
     .map((use) => UriUtils.resolvePath(base, unquote(use.path)));
 }
 
-/** Strips the quotes Langium leaves on STRING values, and unescapes them. */
+/** Strips surrounding quotes if present (Langium's value converter usually has), and unescapes. */
 export function unquote(text: string): string {
   if (text.length >= 2 && text.startsWith('"') && text.endsWith('"')) {
     return text.slice(1, -1).replace(/\\(.)/g, '$1');
