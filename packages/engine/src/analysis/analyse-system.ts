@@ -66,9 +66,9 @@ function analyse(model: SystemModel, options: AnalysisOptions & AnalysisInternal
   const failures: AnalysisFailure[] = [];
   const ambient = graph.ambientPa;
 
+  const inletByName = new Map((model.inlets ?? []).map((i) => [i.name, i]));
   const need = (inlet: string): number | null => {
-    const i = (model.inlets ?? []).find((x) => x.name === inlet);
-    const v = i?.tool?.requiredVacuumPa ?? model.design?.defaultToolVacuumPa;
+    const v = inletByName.get(inlet)?.tool?.requiredVacuumPa ?? model.design?.defaultToolVacuumPa;
     return v !== undefined && Number.isFinite(v) ? v : null;
   };
 
@@ -177,7 +177,8 @@ function analyse(model: SystemModel, options: AnalysisOptions & AnalysisInternal
   });
 
   return {
-    ambient: { pressurePa: ambient, temperatureK: graph.temperatureK },
+    // Impossible site air is reported in `failures`; the numbers stay finite.
+    ambient: { pressurePa: finiteOr0(ambient), temperatureK: finiteOr0(graph.temperatureK) },
     operators,
     designCase,
     producer: producers[0] ?? null,
@@ -193,6 +194,10 @@ function analyse(model: SystemModel, options: AnalysisOptions & AnalysisInternal
   };
 }
 
+function finiteOr0(x: number | undefined): number {
+  return x !== undefined && Number.isFinite(x) ? x : 0;
+}
+
 function positive(x: number | undefined): number | undefined {
   return x !== undefined && Number.isFinite(x) && x > 0 ? x : undefined;
 }
@@ -200,7 +205,7 @@ function positive(x: number | undefined): number | undefined {
 function emptyAnalysis(model: SystemModel, options: AnalysisOptions, message: string): SystemAnalysis {
   const operators = operatorCount(model, options);
   return {
-    ambient: { pressurePa: model.site?.ambientPressurePa ?? 0, temperatureK: model.site?.temperatureK ?? 0 },
+    ambient: { pressurePa: finiteOr0(model.site?.ambientPressurePa), temperatureK: finiteOr0(model.site?.temperatureK) },
     operators,
     designCase: null,
     producer: null,

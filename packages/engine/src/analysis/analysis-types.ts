@@ -193,6 +193,7 @@ export interface ScenarioAnalysis {
   producer: ProducerPoint | null;
   producers: ProducerPoint[];
   inlets: InletPoint[];
+  /** The pipes that carry air in this scenario. */
   pipes: PipePoint[];
 }
 

@@ -107,11 +107,10 @@ export function demandAndMargin(
   if (f0.margin >= 0) {
     lo = start;
     fLo = f0;
-    hi = ambient * (1 - 1e-6);
-    const f = leastMargin(hi);
-    if (!f) return { ok: false, reason: 'the case cannot be solved with the producer inlet held' };
-    fHi = f;
-    if (fHi.margin >= 0) return finish(hi, fHi.flow);
+    // At no vacuum nothing flows and every tool lacks all it needs: no solve needed.
+    hi = ambient;
+    fHi = { margin: -Math.max(...needs.filter((x): x is number => x !== null)), flow: 0 };
+    if (fHi.margin >= 0) return finish(lo, fLo.flow);
   } else {
     hi = start;
     fHi = f0;

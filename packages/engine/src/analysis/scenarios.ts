@@ -3,7 +3,7 @@
  * each solved exactly.
  */
 import type { Scenario } from '../network/model.js';
-import type { AnalysisFailure, ScenarioAnalysis } from './analysis-types.js';
+import type { AnalysisFailure, PipePoint, ScenarioAnalysis } from './analysis-types.js';
 import type { CaseRunner } from './case-runner.js';
 import { producerPoints } from './producer-point.js';
 
@@ -27,7 +27,10 @@ export function scenarioResults(runner: CaseRunner, scenarios: readonly Scenario
     }
     const producers = producerPoints(runner, res.view);
     const inlets = openings.map((o) => runner.inletPoint(res.view, o.inlet, o.toolState)).filter((p) => p !== null);
-    const pipes = (runner.graph.model.pipes ?? []).map((p) => runner.pipePoint(res.view, p.name)).filter((p) => p !== null);
+    // The pipes that carry air in this scenario.
+    const pipes = (runner.graph.model.pipes ?? [])
+      .map((p) => runner.pipePoint(res.view, p.name))
+      .filter((p): p is PipePoint => p !== null && p.massFlowKgPerS > 0);
     out.push({ name: sc.name, ok: true, producer: producers[0] ?? null, producers, inlets, pipes });
   }
   return { scenarios: out, failures };

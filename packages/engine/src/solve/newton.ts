@@ -51,6 +51,9 @@ export type NewtonOutcome =
 const MIN_PRESSURE_RATIO_PER_STEP = 0.2;
 // Armijo sufficient-decrease constant (Dennis and Schnabel 1983: 1e-4).
 const ARMIJO_C = 1e-4;
+// A step that leaves more than this share of |F|^2 (half the residual norm)
+// is poor progress: try the interpolated step too (our choice).
+const POOR_PROGRESS = 0.25;
 // Backtracking limits (our choice): at most 30 halvings.
 const MAX_BACKTRACKS = 30;
 // A node's imbalance below this many units of rounding of its pressure times
@@ -287,6 +290,33 @@ export function newtonSolve(sys: LocalSystem, p: Float64Array, backend: LinearBa
       // No decrease along the Newton direction even for tiny steps: stuck at a
       // kink or a limit of some law.
       return { status: 'stalled', iterations, flows, limits, imbalanceFraction: fraction(ev), evaluations };
+    }
+    // Accepted but little progress: Newton may be overshooting a square-root
+    // law near zero flow (it then jumps to the mirror point). Try the minimum
+    // of the quadratic through phi(0), phi'(0) = -2 phi(0) and phi(alpha),
+    // phi = |F|^2 (Dennis and Schnabel 1983, sec. 6.3.2), and keep the better.
+    if (trialEv!.norm2 > POOR_PROGRESS * ev.norm2) {
+      const phi0 = ev.norm2;
+      const phi1 = trialEv!.norm2;
+      const best = alpha * (phi0 / (phi0 + phi1));
+      if (best < 0.9 * alpha && best > 0) {
+        const keepP = Float64Array.from(trialP);
+        for (let i = 0; i < n; i++) trialP[i] = p[i]! + best * step[i]!;
+        const altF = new Float64Array(n);
+        const altFlows = new Float64Array(m);
+        const altValues = new Float64Array(backend.valueCount);
+        const altLimits: (LawLimit | undefined)[] = new Array(m);
+        const alt = evaluate(trialP, altF, altFlows, altValues, altLimits);
+        if (alt.badElement < 0 && alt.norm2 < trialEv!.norm2) {
+          trialEv = alt;
+          trialF = altF;
+          trialFlows = altFlows;
+          trialValues = altValues;
+          trialLimits = altLimits;
+        } else {
+          trialP.set(keepP);
+        }
+      }
     }
     // Take the trial point; its residual and Jacobian are already assembled.
     p.set(trialP);
