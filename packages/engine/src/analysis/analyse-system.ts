@@ -36,7 +36,7 @@ import { DEFAULT_EXACT_SET_LIMIT, DEFAULT_EXACT_TOTAL_LIMIT, DEFAULT_VERIFY_SETS
 /** Options beyond the JSON-able ones: the element laws (tests) and search tuning. */
 export interface AnalysisInternals {
   laws?: ElementLaws;
-  /** Largest C(n, k) solved exhaustively (default 20,000). */
+  /** Largest C(n, k) solved exhaustively (default 5,000). */
   exactTotalLimit?: number;
   /** Sets per inlet solved exactly in greedy-swap mode (default 2). */
   verifySets?: number;

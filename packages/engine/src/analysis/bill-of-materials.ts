@@ -10,7 +10,7 @@
 import type { SystemModel } from '../network/model.js';
 import type { BillOfMaterials } from './analysis-types.js';
 
-// Angles and radius ratios group to 0.1 deg and 0.01 (our choice: written values repeat exactly).
+// Angles group to 1e-4 rad (0.006 deg) and radius ratios to 0.01 (our choice: written values repeat exactly).
 const ANGLE_KEY_DIGITS = 4;
 
 export function billOfMaterials(model: SystemModel, operators: number): BillOfMaterials {

@@ -58,6 +58,9 @@ export type DemandResult =
 const MARGIN_TOLERANCE_PA = 1;
 const MAX_STEPS = 40;
 // Search the producer inlet pressure no lower than 10 % of ambient (90 % vacuum; our choice).
+// Without an operating point start at 20 % vacuum; step deeper by at least 2 % of ambient (our choices).
+const FALLBACK_START_FRACTION = 0.8;
+const FIRST_STEP_FRACTION = 0.02;
 const LOWEST_INLET_FRACTION = 0.1;
 
 /**
@@ -97,7 +100,7 @@ export function demandAndMargin(
 
   // Bracket from the operating point: toward no vacuum when the critical
   // tool has vacuum to spare, else deeper, doubling the step.
-  const start = Number.isFinite(operatingInletPa) && operatingInletPa > 0 && operatingInletPa < ambient ? operatingInletPa : 0.8 * ambient;
+  const start = Number.isFinite(operatingInletPa) && operatingInletPa > 0 && operatingInletPa < ambient ? operatingInletPa : FALLBACK_START_FRACTION * ambient;
   const f0 = leastMargin(start);
   if (!f0) return { ok: false, reason: 'the case cannot be solved with the producer inlet held' };
   let hi: number;
@@ -114,7 +117,7 @@ export function demandAndMargin(
   } else {
     hi = start;
     fHi = f0;
-    let step = Math.max(0.02 * ambient, ambient - start);
+    let step = Math.max(FIRST_STEP_FRACTION * ambient, ambient - start);
     for (;;) {
       const x = hi - step;
       if (x < LOWEST_INLET_FRACTION * ambient) return { ok: false, reason: 'no producer vacuum gives every open tool the vacuum it needs' };

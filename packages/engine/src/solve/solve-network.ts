@@ -21,6 +21,9 @@ export const DEFAULT_MAX_ITERATIONS = 100;
 // A node pressure below this share of the highest fixed pressure means the
 // case needs (near) zero absolute pressure somewhere: not physical (our choice).
 const ZERO_PRESSURE_FRACTION = 1e-3;
+// A Newton run that stops with some node below 2 % of the highest fixed
+// pressure was heading for zero pressure (our choice).
+const STALLED_NEAR_ZERO_FRACTION = 0.02;
 
 /** Solves a case. `active` lists element ids; duplicates are ignored. */
 export function solveNetwork(
@@ -359,7 +362,7 @@ function solveInner(net: SolverNetwork, active: ArrayLike<number>, options: Netw
     ? { cause: 'infeasible-demand', element: net.refs[curveEnd.element], message: 'the producer cannot deliver the demand: past the end of its curve' }
     : choked
       ? { cause: 'choked', element: net.refs[choked.element], message: 'flow is choked (sonic) in this element' }
-      : zeroPressure || lowest < 0.02 * maxFixed
+      : zeroPressure || lowest < STALLED_NEAR_ZERO_FRACTION * maxFixed
         ? { cause: 'zero-pressure', element: elementAtNode(lowestNode), message: 'pressure falls toward zero: the demand cannot be met' }
         : {
             cause: 'not-converged',
