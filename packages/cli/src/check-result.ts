@@ -1,3 +1,4 @@
+import type { SuppressedFinding, SystemAnalysis, SystemModel } from '@vacnet/engine';
 import type { DiagnosticSeverity, VacnetDiagnostic } from '@vacnet/language';
 
 /** One checked file: its path as shown to the user and its findings, in source order. */
@@ -5,6 +6,12 @@ export interface CheckedFile {
   /** Relative to the working folder. */
   path: string;
   diagnostics: VacnetDiagnostic[];
+  /** The system in the file, when there is one. */
+  model?: SystemModel;
+  /** Its airflow analysis, when the file was free of structural errors. */
+  analysis?: SystemAnalysis;
+  /** Findings the file accepts, with their written reasons. */
+  accepted?: SuppressedFinding[];
 }
 
 /** Counts over all checked files. */

@@ -30,11 +30,13 @@ export async function main(argv: readonly string[], io: CommandIo = processIo())
     )
     .argument('<paths...>', '.vacnet files or folders to check')
     .addOption(new Option('-f, --format <format>', 'output format').choices(['text', 'json']).default('text'))
+    .option('--no-analysis', 'check structure and units only; skip the airflow analysis and design rules')
     .addHelpText(
       'after',
       [
         '',
-        'Output (text): one line per finding, then a summary:',
+        'Output (text): one line per finding, then for each analysed system its',
+        'producer operating point and worst inlet, then a summary:',
         '  path:line:column severity code message',
         'Lines and columns are 1-based in both formats.',
         '',
@@ -48,9 +50,9 @@ export async function main(argv: readonly string[], io: CommandIo = processIo())
         '  vacnet check --format json plant.vacnet > findings.json',
       ].join('\n'),
     )
-    .action(async (paths: string[], options: { format: 'text' | 'json' }) => {
+    .action(async (paths: string[], options: { format: 'text' | 'json'; analysis: boolean }) => {
       const { runCheck } = await import('./commands/check.js');
-      exitCode = await runCheck(paths, { format: options.format }, io);
+      exitCode = await runCheck(paths, { format: options.format, analysis: options.analysis }, io);
     });
 
   try {

@@ -3,10 +3,11 @@ import * as path from 'node:path';
 import { URI, type LangiumDocument } from 'langium';
 import { NodeFileSystem } from 'langium/node';
 import type { Diagnostic } from 'vscode-languageserver';
-import type { SystemModel } from '@vacnet/engine';
+import type { SuppressedFinding, SystemAnalysis, SystemModel } from '@vacnet/engine';
 import type { Document } from './generated/ast.js';
 import { createVacnetServices, type VacnetServices } from './vacnet-module.js';
 import { lowerSystem, type LoweredSystem } from './lowering/lower-system.js';
+import { analyseLowered } from './engine-bridge/analyse-lowered.js';
 import { usedUris } from './references/use-paths.js';
 import { StructureCodes } from './validation/codes.js';
 import type { DiagnosticSeverity, VacnetDiagnostic } from './diagnostic.js';
@@ -23,6 +24,15 @@ export interface LoadedFile {
   lowered?: LoweredSystem;
   /** The file was named by the caller (not only reached through `use`). */
   requested: boolean;
+  /** The airflow analysis, when asked for and the file is free of structural errors. */
+  analysis?: SystemAnalysis;
+  /** Findings the file accepts, with their written reasons. */
+  accepted?: SuppressedFinding[];
+}
+
+export interface LoadOptions {
+  /** Run the airflow analysis and the design rules on each system (default: structure only). */
+  analyse?: boolean;
 }
 
 export interface LoadResult {
@@ -45,7 +55,7 @@ function services(): ReturnType<typeof createVacnetServices> {
  * same findings. Never throws for bad input: an unreadable file becomes a
  * diagnostic of its own.
  */
-export async function loadDocuments(paths: string[]): Promise<LoadResult> {
+export async function loadDocuments(paths: string[], options: LoadOptions = {}): Promise<LoadResult> {
   const { shared } = services();
   const documents = shared.workspace.LangiumDocuments;
   const builder = shared.workspace.DocumentBuilder;
@@ -100,12 +110,12 @@ export async function loadDocuments(paths: string[]): Promise<LoadResult> {
     }
     const document = loaded.get(URI.file(absolute).toString());
     if (!document) continue;
-    files.push(describeDocument(document, requestedPaths.has(absolute)));
+    files.push(describeDocument(document, requestedPaths.has(absolute), options.analyse === true));
   }
   return { files };
 }
 
-function describeDocument(document: LangiumDocument, requested: boolean): LoadedFile {
+function describeDocument(document: LangiumDocument, requested: boolean, analyse: boolean): LoadedFile {
   const diagnostics = (document.diagnostics ?? []).map(toVacnetDiagnostic);
   const root = document.parseResult.value as Document;
   const system = root.systems?.[0];
@@ -114,6 +124,12 @@ function describeDocument(document: LangiumDocument, requested: boolean): Loaded
     const lowered = lowerSystem(system);
     file.lowered = lowered;
     file.model = lowered.model;
+    if (analyse) {
+      const engine = analyseLowered(lowered, diagnostics, file.path);
+      file.diagnostics = [...diagnostics, ...engine.diagnostics];
+      if (engine.analysis) file.analysis = engine.analysis;
+      file.accepted = engine.suppressed;
+    }
   }
   return file;
 }

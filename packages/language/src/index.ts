@@ -1,6 +1,8 @@
 // The language package's public surface: the rest of the product imports from here, never from generated/.
 export { createVacnetServices, VacnetModule, type VacnetServices } from './vacnet-module.js';
-export { loadDocuments, toVacnetDiagnostic, type LoadedFile, type LoadResult } from './document.js';
+export { loadDocuments, toVacnetDiagnostic, type LoadedFile, type LoadOptions, type LoadResult } from './document.js';
+export { analyseLowered, ANALYSIS_FAILED, ANALYSIS_WAITING, type EngineResult } from './engine-bridge/analyse-lowered.js';
+export { locateElement } from './engine-bridge/locate-element.js';
 export type { VacnetDiagnostic, SourceRange, SourcePosition, DiagnosticSeverity } from './diagnostic.js';
 export { lowerSystem, type LoweredSystem } from './lowering/lower-system.js';
 export { SourceIndex } from './lowering/source-index.js';

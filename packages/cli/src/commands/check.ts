@@ -13,6 +13,8 @@ export type CheckFormat = (typeof CHECK_FORMATS)[number];
 
 export interface CheckOptions {
   format: CheckFormat;
+  /** Solve the airflow and apply the design rules (default true); false checks structure only. */
+  analysis?: boolean;
 }
 
 /**
@@ -24,7 +26,7 @@ export interface CheckOptions {
 export async function runCheck(paths: readonly string[], options: CheckOptions, io: CommandIo): Promise<number> {
   let result: CheckResult;
   try {
-    result = await check(paths, io.cwd);
+    result = await check(paths, io.cwd, options.analysis !== false);
   } catch (error) {
     if (error instanceof UsageError) {
       io.stderr(`vacnet check: ${error.message}\n`);
@@ -39,19 +41,25 @@ export async function runCheck(paths: readonly string[], options: CheckOptions, 
 }
 
 /** Expands the paths, loads the files and gathers their findings. */
-export async function check(paths: readonly string[], cwd: string): Promise<CheckResult> {
+export async function check(paths: readonly string[], cwd: string, analyse = true): Promise<CheckResult> {
   const requested = await expandPaths(paths, cwd);
   if (requested.length === 0) {
     throw new UsageError(`no .vacnet files found in ${paths.join(', ')}`);
   }
-  const loaded = await loadDocuments(requested);
+  const loaded = await loadDocuments(requested, { analyse });
   const files: CheckedFile[] = [];
   const seen = new Set<string>();
   for (const file of loaded.files) {
     const absolute = resolve(cwd, file.path);
     if (seen.has(absolute)) continue;
     seen.add(absolute);
-    files.push({ path: displayPath(absolute, cwd), diagnostics: [...file.diagnostics].sort(bySourcePosition) });
+    files.push({
+      path: displayPath(absolute, cwd),
+      diagnostics: [...file.diagnostics].sort(bySourcePosition),
+      ...(file.model ? { model: file.model } : {}),
+      ...(file.analysis ? { analysis: file.analysis } : {}),
+      ...(file.accepted && file.accepted.length > 0 ? { accepted: file.accepted } : {}),
+    });
   }
   return { files, summary: summarise(files) };
 }

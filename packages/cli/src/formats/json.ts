@@ -1,3 +1,4 @@
+import type { SystemAnalysis } from '@vacnet/engine';
 import type { CheckResult, CheckSummary } from '../check-result.js';
 
 /** One finding in the JSON format. Lines and columns are 1-based, as in the text format. */
@@ -13,8 +14,27 @@ export interface JsonDiagnostic {
 }
 
 /** The JSON format's document; its shape is documented in the README. */
+/** A finding the file accepts, with the reason written beside it. */
+export interface JsonAccepted {
+  code: string;
+  message: string;
+  element: { kind: string; name: string };
+  reason: string;
+  scope: string;
+}
+
+export interface JsonFile {
+  path: string;
+  diagnostics: JsonDiagnostic[];
+  /** The system's name, when the file holds one. */
+  system?: string;
+  /** The airflow analysis in SI units (every numeric key ends with its unit); absent when not run. */
+  analysis?: SystemAnalysis;
+  accepted?: JsonAccepted[];
+}
+
 export interface JsonCheckOutput {
-  files: { path: string; diagnostics: JsonDiagnostic[] }[];
+  files: JsonFile[];
   summary: CheckSummary;
 }
 
@@ -33,6 +53,19 @@ export function toJson(result: CheckResult): JsonCheckOutput {
         endColumn: d.range.end.character + 1,
         source: d.source,
       })),
+      ...(file.model ? { system: file.model.name } : {}),
+      ...(file.analysis ? { analysis: file.analysis } : {}),
+      ...(file.accepted
+        ? {
+            accepted: file.accepted.map((a) => ({
+              code: a.finding.code,
+              message: a.finding.message,
+              element: { kind: a.finding.element.kind, name: a.finding.element.name },
+              reason: a.reason,
+              scope: a.scope,
+            })),
+          }
+        : {}),
     })),
     summary: result.summary,
   };

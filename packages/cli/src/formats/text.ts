@@ -1,9 +1,11 @@
 import type { CheckResult, CheckSummary } from '../check-result.js';
+import { describeSystem } from './system-summary.js';
 
 /**
  * The text format: one line per finding, `path:line:col severity code message`
  * with 1-based line and column (the form editors and terminals turn into
- * links), then a one-line summary.
+ * links); then, for each analysed system, a few indented lines on its
+ * producer and its worst inlet; then a one-line summary.
  */
 export function formatText(result: CheckResult): string {
   const lines: string[] = [];
@@ -14,6 +16,10 @@ export function formatText(result: CheckResult): string {
       lines.push(`${file.path}:${line}:${column} ${d.severity} ${d.code} ${oneLine(d.message)}`);
     }
   }
+  for (const file of result.files) {
+    if (file.model && file.analysis) lines.push('', ...describeSystem(file.path, file.model, file.analysis, file.accepted ?? []));
+  }
+  if (lines.length > 0) lines.push('');
   lines.push(formatSummary(result.summary));
   return lines.join('\n') + '\n';
 }
