@@ -6,8 +6,10 @@
  * a part with no guess at all starts at a modest vacuum below the highest
  * fixed pressure. Then every unguessed node that hangs between a fixed
  * pressure and one other node (a hose end between room and inlet valve)
- * gets the pressure that balances its two elements (bisection), so a newly
- * opened tool starts with a sensible flow instead of none or far too much.
+ * gets the pressure that balances its two elements, so a newly opened tool
+ * starts with a sensible flow instead of none or far too much; and when new
+ * series nodes join it to a guessed node (a newly opened branch), they are
+ * raised so that each element passes that flow. Roots by regula falsi.
  */
 import type { LocalSystem } from './newton.js';
 
@@ -22,7 +24,7 @@ const BISECTION_STEPS = 40;
  * Returns the number of law evaluations it spent.
  */
 export function fillInitialPressures(sys: LocalSystem, p: Float64Array, known: Uint8Array, maxFixedPa: number): number {
-  evaluations = 0;
+  const count = { n: 0 };
   const { n, la, lb, fa, fb } = sys;
   const m = la.length;
   const start = maxFixedPa > 0 ? maxFixedPa * (1 - START_VACUUM_FRACTION) : 1;
@@ -81,7 +83,7 @@ export function fillInitialPressures(sys: LocalSystem, p: Float64Array, known: U
     if (Number.isFinite(fixedEnd(e1)) && otherNode(e2, v) >= 0) [eFixed, eOther] = [e1, e2];
     else if (Number.isFinite(fixedEnd(e2)) && otherNode(e1, v) >= 0) [eFixed, eOther] = [e2, e1];
     if (eFixed < 0) continue;
-    const flowIn = balanceHanging(sys, p, v, eFixed, eOther);
+    const flowIn = balanceHanging(sys, p, v, eFixed, eOther, count);
     if (flowIn === null || !(Math.abs(flowIn) > 0)) continue;
     // The chain of new series nodes from v's neighbour to a guessed node.
     const chain: { node: number; toward: number }[] = [];
@@ -100,42 +102,40 @@ export function fillInitialPressures(sys: LocalSystem, p: Float64Array, known: U
     // which its element toward the guessed node passes the hanging flow.
     for (let c = chain.length - 1; c >= 0; c--) {
       const { node: x, toward } = chain[c]!;
-      const solved = passFlow(sys, p, x, toward, flowIn, Math.max(p[v]!, fixedEnd(eFixed)));
+      const solved = passFlow(sys, p, x, toward, flowIn, Math.max(p[v]!, fixedEnd(eFixed)), count);
       if (solved === null) break;
       p[x] = solved;
     }
-    balanceHanging(sys, p, v, eFixed, eOther);
+    balanceHanging(sys, p, v, eFixed, eOther, count);
   }
-  return evaluations;
+  return count.n;
 }
 
-/** Law evaluations spent on the last fill (for the work counters). */
-let evaluations = 0;
-
 /** Net inflow into node v from its elements, with v at pressure x. */
-function inflowAt(sys: LocalSystem, p: Float64Array, v: number, elems: readonly number[], x: number): number {
+function inflowAt(sys: LocalSystem, p: Float64Array, v: number, elems: readonly number[], x: number, count: { n: number }): number {
   const { la, lb, fa, fb } = sys;
   let s = 0;
   for (const e of elems) {
     const pa = la[e] === v ? x : la[e]! < 0 ? fa[e]! : p[la[e]!]!;
     const pb = lb[e] === v ? x : lb[e]! < 0 ? fb[e]! : p[lb[e]!]!;
     const f = sys.laws[e]!.flow(pa, pb).massFlowKgPerS;
-    evaluations++;
+    count.n++;
     s += la[e] === v ? -f : f;
   }
   return s;
 }
 
 /** Balances a hanging node between its two end pressures; returns the flow in from the fixed side. */
-function balanceHanging(sys: LocalSystem, p: Float64Array, v: number, eFixed: number, eOther: number): number | null {
+function balanceHanging(sys: LocalSystem, p: Float64Array, v: number, eFixed: number, eOther: number, count: { n: number }): number | null {
   const { la, lb, fa, fb } = sys;
   const pFixed = la[eFixed] === v ? fb[eFixed]! : fa[eFixed]!;
   const other = la[eOther] === v ? lb[eOther]! : la[eOther]!;
   const pOther = p[other]!;
   if (!(pFixed > 0) || !(pOther > 0) || pFixed === pOther) return null;
-  const x = falsePosition((y) => inflowAt(sys, p, v, [eFixed, eOther], y), Math.min(pFixed, pOther), Math.max(pFixed, pOther));
+  const x = falsePosition((y) => inflowAt(sys, p, v, [eFixed, eOther], y, count), Math.min(pFixed, pOther), Math.max(pFixed, pOther));
   if (x === null) return null;
   p[v] = x;
+  count.n++;
   const r = sys.laws[eFixed]!.flow(la[eFixed] === v ? p[v]! : fa[eFixed]!, lb[eFixed] === v ? p[v]! : fb[eFixed]!);
   return la[eFixed] === v ? -r.massFlowKgPerS : r.massFlowKgPerS;
 }
@@ -145,12 +145,12 @@ function balanceHanging(sys: LocalSystem, p: Float64Array, v: number, eFixed: nu
  * placed node) carries `flowIn` from x toward that node; bracketed
  * bisection between that node's pressure and `ceiling`. Null if no root.
  */
-function passFlow(sys: LocalSystem, p: Float64Array, x: number, e: number, flowIn: number, ceiling: number): number | null {
+function passFlow(sys: LocalSystem, p: Float64Array, x: number, e: number, flowIn: number, ceiling: number, count: { n: number }): number | null {
   const { la, lb, fa, fb } = sys;
   const otherP = la[e] === x ? (lb[e]! < 0 ? fb[e]! : p[lb[e]!]!) : la[e]! < 0 ? fa[e]! : p[la[e]!]!;
   const g = (px: number) => {
     const r = sys.laws[e]!.flow(la[e] === x ? px : otherP, lb[e] === x ? px : otherP);
-    evaluations++;
+    count.n++;
     const out = la[e] === x ? r.massFlowKgPerS : -r.massFlowKgPerS; // flow leaving x through e
     return out - flowIn;
   };
