@@ -18,16 +18,31 @@ function typoPosition(): { line: number; column: number } {
   return { line: index + 1, column: lines[index]!.indexOf('house-3O') + 1 };
 }
 
+/**
+ * Splits text output into its documented parts: finding lines first, then
+ * (after a blank line) indented blocks on analysed systems, then the summary
+ * as the last line.
+ */
 function parseText(stdout: string) {
   const lines = stdout.trimEnd().split('\n');
   const summary = lines.pop()!.match(SUMMARY_LINE)?.groups;
-  const findings = lines.map((line) => {
+  expect(summary, `no summary line at the end of:\n${stdout}`).toBeDefined();
+  const blank = lines.indexOf('');
+  const findingLines = blank === -1 ? lines : lines.slice(0, blank);
+  const findings = findingLines.map((line) => {
     const groups = line.match(FINDING_LINE)?.groups;
     expect(groups, `not a finding line: ${line}`).toBeDefined();
     return { ...groups!, line: Number(groups!.line), column: Number(groups!.column) };
   });
-  expect(summary, `no summary line at the end of:\n${stdout}`).toBeDefined();
-  return { findings, summary: { files: Number(summary!.files), errors: Number(summary!.errors), warnings: Number(summary!.warnings), infos: Number(summary!.infos) } };
+  const rest = blank === -1 ? [] : lines.slice(blank);
+  for (const line of rest) {
+    expect(line.match(FINDING_LINE), `a finding line after the findings: ${line}`).toBeNull();
+  }
+  return {
+    findings,
+    systemLines: rest.filter((line) => line !== ''),
+    summary: { files: Number(summary!.files), errors: Number(summary!.errors), warnings: Number(summary!.warnings), infos: Number(summary!.infos) },
+  };
 }
 
 const countOf = (findings: { severity: string }[], severity: string) => findings.filter((f) => f.severity === severity).length;
@@ -128,7 +143,7 @@ describe('vacnet check (bin), folders and bad paths', () => {
     writeFileSync(
       join(work, 'uses/catalog.vacnet'),
       'spec pvc-2 material pvc roughness 0.0015 mm\nhose house-30 length 30 ft bore 1-1/4 in roughness 0.3 mm\n' +
-        'tool floor-brush working orifice 3/4 in needs 4 inHg\nproducer power-unit { curve { at 0 scfm 120 inH2O  at 120 scfm 40 inH2O } }\n' +
+        'tool floor-brush working orifice 3/4 in needs 2 inHg\nproducer power-unit { curve { at 0 scfm 200 inH2O  at 150 scfm 100 inH2O } }\n' +
         'spec pvc-2 material pvc roughness 0.0015 mm\n',
     );
     writeFileSync(
