@@ -156,9 +156,11 @@ export function buildNetworkGraph(model: SystemModel, options: GraphOptions): Ne
     refs: topology.elements.map((el) => el.ref),
     drives,
     classifyLimit: (e, limit, pa, _pb, flow) => {
-      if (limit === 'choked') return 'choked';
-      if (limit !== 'curve-end') return null;
       const el = topology.elements[e]!;
+      // A test orifice at sonic flow is a sound test (its flow is then fixed by
+      // the room side alone); a choked tool or pipe is reported (ENGINEERING.md).
+      if (limit === 'choked') return el.kind === 'test-orifice' ? null : 'choked';
+      if (limit !== 'curve-end') return null;
       if (el.kind !== 'producer') return null; // a tool past its table: extrapolated, not a failure
       const unit = producers.get(el.ref.name)!;
       const end = laws.producerCurveEndFlow?.(unit, pa, temperatureK);
