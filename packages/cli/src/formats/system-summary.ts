@@ -32,8 +32,30 @@ export function describeSystem(path: string, model: SystemModel, analysis: Syste
     const others = partners.length > 0 ? ` with ${partners.join(', ')} also open` : ' alone';
     lines.push(`  worst inlet ${worst.name}: ${vacuum(worst.worstCase.toolVacuumPa)} at the tool${need}, ${flow(worst.worstCase.flowStdM3PerS)}${others} (${worst.worstCase.method} search)`);
   }
+  lines.push(...describeAccepted(accepted));
+  return lines;
+}
+
+/**
+ * One line per acceptance as written: an element's acceptance names its
+ * element; a system-wide one is said once with the number of findings it covers.
+ */
+function describeAccepted(accepted: readonly SuppressedFinding[]): string[] {
+  const lines: string[] = [];
+  const systemWide = new Map<string, { reason: string; count: number }>();
   for (const a of accepted) {
-    lines.push(`  accepted ${a.finding.code} on ${a.finding.element.name}: "${a.reason}"`);
+    if (a.scope === 'system') {
+      const key = `${a.finding.code}\u0000${a.reason}`;
+      const entry = systemWide.get(key) ?? { reason: a.reason, count: 0 };
+      entry.count++;
+      systemWide.set(key, entry);
+    } else {
+      lines.push(`  accepted ${a.finding.code} on ${a.finding.element.name}: "${a.reason}"`);
+    }
+  }
+  for (const [key, { reason, count }] of systemWide) {
+    const code = key.split('\u0000')[0];
+    lines.push(`  accepted ${code} throughout (${count} finding${count === 1 ? '' : 's'}): "${reason}"`);
   }
   return lines;
 }
