@@ -1,6 +1,7 @@
 #!/usr/bin/env node
 // The vacnet language server for any editor: `vacnet-lsp --stdio`.
 // Runs the compiled server of this package (build first: `npm run build`).
+import { isMainThread } from 'node:worker_threads';
 
 const usage = `usage: vacnet-lsp --stdio | --node-ipc | --socket=<port> | --pipe=<name>
 Speaks the Language Server Protocol for .vacnet files over the chosen transport.`;
@@ -10,7 +11,10 @@ const transport = args.some(
   (arg) => arg === '--stdio' || arg === '--node-ipc' || /^--(socket|pipe)(=|$)/.test(arg),
 );
 
-if (args.includes('--help') || args.includes('-h')) {
+if (!isMainThread) {
+  // The server's analysis thread starts from this same script (see src/main.ts).
+  await import('../dist/main.js');
+} else if (args.includes('--help') || args.includes('-h')) {
   process.stdout.write(`${usage}\n`);
 } else if (!transport) {
   // Without a transport the connection cannot start: say how, exit as a usage error.

@@ -24,7 +24,7 @@ export interface VacnetDiagnostic {
   /** Where the finding comes from: the parser, the checks of the file itself, or the airflow engine. */
   source: 'syntax' | 'structure' | 'engine';
   /** Other places that explain the finding. */
-  related?: { path: string; range: SourceRange; message: string }[];
+  related?: { path: string; range: SourceRange; message: string; /** The document's URI, when known (a catalog element lives in another file). */ uri?: string }[];
   /** What a quick fix needs, plain JSON. */
   data?: Record<string, unknown>;
 }

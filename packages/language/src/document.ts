@@ -2,15 +2,16 @@ import { promises as fs } from 'node:fs';
 import * as path from 'node:path';
 import { URI, type LangiumDocument } from 'langium';
 import { NodeFileSystem } from 'langium/node';
-import type { Diagnostic } from 'vscode-languageserver';
 import type { SuppressedFinding, SystemAnalysis, SystemModel } from '@vacnet/engine';
 import type { Document } from './generated/ast.js';
 import { createVacnetServices, type VacnetServices } from './vacnet-module.js';
 import { lowerSystem, type LoweredSystem } from './lowering/lower-system.js';
 import { analyseLowered } from './engine-bridge/analyse-lowered.js';
 import { usedUris } from './references/use-paths.js';
-import { StructureCodes } from './validation/codes.js';
-import type { DiagnosticSeverity, VacnetDiagnostic } from './diagnostic.js';
+import type { VacnetDiagnostic } from './diagnostic.js';
+import { toVacnetDiagnostic } from './diagnostic-conversion.js';
+
+export { toVacnetDiagnostic };
 
 /** One file as the loader saw it. */
 export interface LoadedFile {
@@ -132,23 +133,6 @@ function describeDocument(document: LangiumDocument, requested: boolean, analyse
     }
   }
   return file;
-}
-
-/** Converts a language-server diagnostic to ours (codes were given by the document validator). */
-export function toVacnetDiagnostic(diagnostic: Diagnostic): VacnetDiagnostic {
-  const code = typeof diagnostic.code === 'string' ? diagnostic.code : StructureCodes.syntaxError;
-  const source: VacnetDiagnostic['source'] = code === StructureCodes.syntaxError ? 'syntax' : 'structure';
-  return {
-    severity: severityName(diagnostic.severity),
-    code,
-    message: typeof diagnostic.message === 'string' ? diagnostic.message : diagnostic.message.value,
-    range: diagnostic.range,
-    source,
-  };
-}
-
-function severityName(severity: number | undefined): DiagnosticSeverity {
-  return severity === 1 || severity === undefined ? 'error' : severity === 2 ? 'warning' : 'info';
 }
 
 function describeIoError(error: unknown): string {

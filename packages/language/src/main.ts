@@ -1,14 +1,18 @@
 /**
  * The language server entry. The connection picks its transport from the
  * command line: `--stdio` for any editor, `--node-ipc` when the VS Code
- * client starts the bundled server.
+ * client starts the bundled server. Started as a worker thread with the
+ * engine role, the same file serves airflow analyses instead (see
+ * engine-bridge/worker-engine-runner.ts).
  */
 import './node-shim.js';
-import { startLanguageServer } from 'langium/lsp';
-import { NodeFileSystem } from 'langium/node';
-import { createConnection, ProposedFeatures } from 'vscode-languageserver/node';
-import { createVacnetServices } from './vacnet-module.js';
+import { isEngineWorker, serveEngineWorker } from './engine-bridge/engine-worker.js';
+import { startServer } from './start-server.js';
 
-const connection = createConnection(ProposedFeatures.all);
-const { shared } = createVacnetServices({ connection, ...NodeFileSystem });
-startLanguageServer(shared);
+/** The file this process runs: the bundle itself (CommonJS), else the script node was started with. */
+function entryFile(): string | undefined {
+  return typeof __filename === 'string' ? __filename : process.argv[1];
+}
+
+if (isEngineWorker()) serveEngineWorker();
+else startServer(entryFile());

@@ -7,6 +7,7 @@ import {
   type LangiumServices,
   type LangiumSharedServices,
   type PartialLangiumServices,
+  type PartialLangiumSharedServices,
 } from 'langium/lsp';
 import { VacnetGeneratedModule, VacnetGeneratedSharedModule } from './generated/module.js';
 import { VacnetScopeComputation } from './references/vacnet-scope-computation.js';
@@ -22,35 +23,85 @@ import { VacnetFoldingRangeProvider } from './lsp/vacnet-folding-range-provider.
 import { VacnetSemanticTokenProvider } from './lsp/vacnet-semantic-token-provider.js';
 import { VacnetDocumentLinkProvider } from './lsp/vacnet-document-link-provider.js';
 import { VacnetHoverProvider } from './lsp/vacnet-hover-provider.js';
+import { VacnetInlayHintProvider } from './lsp/vacnet-inlay-hint-provider.js';
+import { VacnetCodeActionProvider } from './lsp/vacnet-code-action-provider.js';
+import { VacnetConfigurationProvider } from './lsp/vacnet-configuration-provider.js';
+import { DiagnosticsPublisher } from './lsp/diagnostics-publisher.js';
+import { RuleLinks } from './lsp/rule-links.js';
+import { AnalysisCache } from './engine-bridge/analysis-cache.js';
+import { InProcessEngineRunner, type EngineRunner } from './engine-bridge/engine-runner.js';
 
 /** Services of our own, added to Langium's. */
 export interface VacnetAddedServices {
   validation: {
     VacnetValidator: VacnetValidator;
   };
+  engine: {
+    /** Runs the airflow analysis: on a worker thread in the server, on this thread elsewhere. */
+    Runner: EngineRunner;
+    /** The analysis of each system document per text version. */
+    AnalysisCache: AnalysisCache;
+  };
+  lsp: {
+    DiagnosticsPublisher: DiagnosticsPublisher;
+    RuleLinks: RuleLinks;
+  };
 }
 
 export type VacnetServices = LangiumServices & VacnetAddedServices;
 
-export const VacnetModule: Module<VacnetServices, PartialLangiumServices & VacnetAddedServices> = {
-  references: {
-    ScopeComputation: (services) => new VacnetScopeComputation(services),
-    ScopeProvider: (services) => new VacnetScopeProvider(services),
-    Linker: (services) => new VacnetLinker(services),
-  },
-  validation: {
-    VacnetValidator: () => new VacnetValidator(),
-    DocumentValidator: (services) => new VacnetDocumentValidator(services),
-  },
-  lsp: {
-    Formatter: (services) => new VacnetFormatter(services),
-    CompletionProvider: (services) => new VacnetCompletionProvider(services),
-    RenameProvider: (services) => new VacnetRenameProvider(services),
-    DocumentSymbolProvider: () => new VacnetDocumentSymbolProvider(),
-    FoldingRangeProvider: (services) => new VacnetFoldingRangeProvider(services),
-    SemanticTokenProvider: (services) => new VacnetSemanticTokenProvider(services),
-    DocumentLinkProvider: () => new VacnetDocumentLinkProvider(),
-    HoverProvider: (services) => new VacnetHoverProvider(services),
+/** How the services are set up beyond Langium's context. */
+export interface VacnetServiceOptions {
+  /**
+   * Analyse system documents as they are built (the language server). Off by
+   * default without a connection: the headless loader runs the analysis itself.
+   */
+  liveAnalysis?: boolean;
+  /** The engine runner (default: on this thread). */
+  engineRunner?: () => EngineRunner;
+  /** The folder of the running server's entry file, to find docs/rules for the diagnostics' links. */
+  installDir?: string;
+}
+
+export function createVacnetModule(options: VacnetServiceOptions = {}): Module<VacnetServices, PartialLangiumServices & VacnetAddedServices> {
+  return {
+    references: {
+      ScopeComputation: (services) => new VacnetScopeComputation(services),
+      ScopeProvider: (services) => new VacnetScopeProvider(services),
+      Linker: (services) => new VacnetLinker(services),
+    },
+    validation: {
+      VacnetValidator: () => new VacnetValidator(),
+      DocumentValidator: (services) => new VacnetDocumentValidator(services),
+    },
+    engine: {
+      Runner: () => options.engineRunner?.() ?? new InProcessEngineRunner(),
+      AnalysisCache: (services) => new AnalysisCache(services, services.engine.Runner, options.liveAnalysis === true),
+    },
+    lsp: {
+      Formatter: (services) => new VacnetFormatter(services),
+      CompletionProvider: (services) => new VacnetCompletionProvider(services),
+      RenameProvider: (services) => new VacnetRenameProvider(services),
+      DocumentSymbolProvider: () => new VacnetDocumentSymbolProvider(),
+      FoldingRangeProvider: (services) => new VacnetFoldingRangeProvider(services),
+      SemanticTokenProvider: (services) => new VacnetSemanticTokenProvider(services),
+      DocumentLinkProvider: () => new VacnetDocumentLinkProvider(),
+      HoverProvider: (services) => new VacnetHoverProvider(services),
+      InlayHintProvider: (services) => new VacnetInlayHintProvider(services),
+      CodeActionProvider: (services) => new VacnetCodeActionProvider(services),
+      DiagnosticsPublisher: (services) => new DiagnosticsPublisher(services, services.engine.AnalysisCache, services.lsp.RuleLinks),
+      RuleLinks: () => new RuleLinks(options.installDir ?? process.cwd()),
+    },
+  };
+}
+
+/** The language's services with the defaults: no live analysis. */
+export const VacnetModule: Module<VacnetServices, PartialLangiumServices & VacnetAddedServices> = createVacnetModule();
+
+/** Shared services of our own: the configuration provider that reads the `vacnet` settings. */
+export const VacnetSharedModule: Module<LangiumSharedServices, PartialLangiumSharedServices> = {
+  workspace: {
+    ConfigurationProvider: (shared) => new VacnetConfigurationProvider(shared),
   },
 };
 
@@ -58,13 +109,23 @@ export const VacnetModule: Module<VacnetServices, PartialLangiumServices & Vacne
  * Creates the shared services and the vacnet language services. The same
  * wiring serves the language server, the headless loader and the tests.
  */
-export function createVacnetServices(context: DefaultSharedModuleContext): {
+export function createVacnetServices(
+  context: DefaultSharedModuleContext,
+  options: VacnetServiceOptions = {},
+): {
   shared: LangiumSharedServices;
   Vacnet: VacnetServices;
 } {
-  const shared = inject(createDefaultSharedModule(context), VacnetGeneratedSharedModule);
-  const Vacnet = inject(createDefaultModule({ shared }), VacnetGeneratedModule, VacnetModule);
+  const live = options.liveAnalysis ?? context.connection !== undefined;
+  const shared = inject(createDefaultSharedModule(context), VacnetGeneratedSharedModule, VacnetSharedModule);
+  const Vacnet = inject(createDefaultModule({ shared }), VacnetGeneratedModule, createVacnetModule({ ...options, liveAnalysis: live }));
   shared.ServiceRegistry.register(Vacnet);
   registerValidationChecks(Vacnet);
+  if (live) {
+    // Created now so that its build listener runs before Langium's diagnostics handler (registered when the server starts).
+    const cache = Vacnet.engine.AnalysisCache;
+    cache.useSettings(shared.workspace.ConfigurationProvider as VacnetConfigurationProvider);
+    if (context.connection) Vacnet.lsp.DiagnosticsPublisher.takeOver(context.connection);
+  }
   return { shared, Vacnet };
 }

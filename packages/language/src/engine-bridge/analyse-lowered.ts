@@ -1,8 +1,10 @@
-import { analyseSystem, runRules, type Finding, type SuppressedFinding, type SystemAnalysis } from '@vacnet/engine';
+import { URI } from 'langium';
+import type { Finding, SuppressedFinding, SystemAnalysis } from '@vacnet/engine';
 import type { LoweredSystem } from '../lowering/lower-system.js';
 import type { SourceRange, VacnetDiagnostic } from '../diagnostic.js';
 import { StructureCodes } from '../validation/codes.js';
-import { locateElement } from './locate-element.js';
+import { locateElement, locateElementSource } from './locate-element.js';
+import { runEngine, type EngineRun } from './engine-run.js';
 
 /** Codes the language itself reports from the text; the engine's copies would repeat them. */
 const REPORTED_BY_THE_LANGUAGE = new Set<string>([
@@ -34,32 +36,52 @@ export interface EngineResult {
  * analysed (its numbers would rest on guesses); it gets one note saying so.
  */
 export function analyseLowered(lowered: LoweredSystem, structural: readonly VacnetDiagnostic[], filePath: string): EngineResult {
-  const systemRange = locateElement(lowered.sources, { kind: 'system', name: lowered.model.name }) ?? ORIGIN;
-  if (!lowered.complete || structural.some((d) => d.severity === 'error')) {
-    return {
-      diagnostics: [
-        {
-          severity: 'info',
-          code: ANALYSIS_WAITING,
-          message: 'The airflow analysis runs once the errors in this file are fixed.',
-          range: systemRange,
-          source: 'engine',
-        },
-      ],
-      suppressed: [],
-    };
-  }
-  const analysis = analyseSystem(lowered.model);
-  const { findings, suppressed } = runRules(lowered.model, analysis);
+  if (analysisBlocked(lowered, structural)) return waitingResult(lowered);
+  return placeEngineRun(lowered, runEngine(lowered.model), filePath);
+}
+
+/** True when the analysis must wait: a value could not be read, or the file has structural errors. */
+export function analysisBlocked(lowered: LoweredSystem, structural: readonly { severity?: VacnetDiagnostic['severity'] | number }[]): boolean {
+  return !lowered.complete || structural.some((d) => d.severity === 'error' || d.severity === 1);
+}
+
+/** The one note a blocked system gets, on its title. */
+export function waitingResult(lowered: LoweredSystem): EngineResult {
+  return {
+    diagnostics: [
+      {
+        severity: 'info',
+        code: ANALYSIS_WAITING,
+        message: 'The airflow analysis runs once the errors in this file are fixed.',
+        range: systemRange(lowered),
+        source: 'engine',
+      },
+    ],
+    suppressed: [],
+  };
+}
+
+/**
+ * Places the engine's findings on the tokens of the lowered file: the
+ * property a finding names, else the element's name, else the system title.
+ * Related elements in other files (a used catalog's hose kind) keep their
+ * own file.
+ */
+export function placeEngineRun(lowered: LoweredSystem, run: EngineRun, filePath: string): EngineResult {
+  const { analysis, findings, suppressed } = run;
+  const fallback = systemRange(lowered);
   const toDiagnostic = (finding: Finding): VacnetDiagnostic => {
-    const related = (finding.related ?? [])
-      .map((r) => ({ path: filePath, range: locateElement(lowered.sources, r.element), message: r.message }))
-      .filter((r): r is { path: string; range: SourceRange; message: string } => r.range !== undefined);
+    const related: NonNullable<VacnetDiagnostic['related']> = [];
+    for (const r of finding.related ?? []) {
+      const place = locateElementSource(lowered.sources, r.element);
+      if (!place) continue;
+      related.push({ path: place.uri ? pathOf(place.uri, filePath) : filePath, range: place.range, message: r.message, ...(place.uri ? { uri: place.uri } : {}) });
+    }
     return {
       severity: finding.severity,
       code: finding.code,
       message: finding.message,
-      range: locateElement(lowered.sources, finding.element) ?? systemRange,
+      range: locateElement(lowered.sources, finding.element) ?? fallback,
       source: 'engine',
       ...(related.length > 0 ? { related } : {}),
       ...(finding.fix ? { data: { ...finding.fix, element: finding.element } } : { data: { element: finding.element } }),
@@ -80,6 +102,20 @@ export function analyseLowered(lowered: LoweredSystem, structural: readonly Vacn
     );
   }
   return { analysis, diagnostics, suppressed };
+}
+
+function systemRange(lowered: LoweredSystem): SourceRange {
+  return locateElement(lowered.sources, { kind: 'system', name: lowered.model.name }) ?? ORIGIN;
+}
+
+/** A file path for a document URI; other schemes (in-memory documents) keep the caller's path. */
+function pathOf(uri: string, fallback: string): string {
+  try {
+    const parsed = URI.parse(uri);
+    return parsed.scheme === 'file' ? parsed.fsPath : fallback;
+  } catch {
+    return fallback;
+  }
 }
 
 const ORIGIN: SourceRange = { start: { line: 0, character: 0 }, end: { line: 0, character: 0 } };

@@ -9,10 +9,26 @@ import type { SourceRange } from '../diagnostic.js';
  * else the whole element.
  */
 export function locateElement(sources: SourceIndex, ref: ElementRef): SourceRange | undefined {
+  return locateElementSource(sources, ref)?.range;
+}
+
+/**
+ * Like locateElement, with the URI of the document the element is written
+ * in: a hose kind of a used catalog lives in the catalog's file.
+ */
+export function locateElementSource(sources: SourceIndex, ref: ElementRef): { range: SourceRange; uri?: string } | undefined {
   const found = sources.find(ref);
   if (!found) return undefined;
   const cst = found.exact ? valueOf(found.node) : nameOf(found.node);
-  return cst?.range;
+  if (!cst) return undefined;
+  const uri = documentUriOf(found.node);
+  return uri ? { range: cst.range, uri } : { range: cst.range };
+}
+
+function documentUriOf(node: AstNode): string | undefined {
+  let root: AstNode = node;
+  while (root.$container) root = root.$container;
+  return (root as AstNode & { $document?: { uri?: { toString(): string } } }).$document?.uri?.toString();
 }
 
 function valueOf(node: AstNode): CstNode | undefined {

@@ -61,6 +61,17 @@ export function lowerSystem(system: ast.System): LoweredSystem {
   return new Lowering(system).run();
 }
 
+/**
+ * The engine model of one producer model from a catalog, on its own (to
+ * compare catalog producers against a demand). `complete` is false when a
+ * curve value could not be read.
+ */
+export function lowerProducerModel(node: ast.ProducerModel): { model: ModelProducerModel; complete: boolean } {
+  const lowering = new Lowering({ members: [] } as unknown as ast.System);
+  const model = lowering.producerModelAlone(node);
+  return { model, complete: lowering.isComplete };
+}
+
 class Lowering {
   private readonly sources = new SourceIndex();
   private complete = true;
@@ -71,6 +82,14 @@ class Lowering {
   private readonly tools = new Map<ast.ToolKind, ModelToolKind>();
 
   constructor(private readonly system: ast.System) {}
+
+  get isComplete(): boolean {
+    return this.complete;
+  }
+
+  producerModelAlone(node: ast.ProducerModel): ModelProducerModel {
+    return this.producerModel(node);
+  }
 
   run(): LoweredSystem {
     const members = this.system.members;

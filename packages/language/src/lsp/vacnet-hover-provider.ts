@@ -1,12 +1,14 @@
 import { formatQuantity, RULES, type Dimension, type RuleInfo, type RuleParameter, type UnitSystem } from '@vacnet/engine';
 import { AstUtils, CstUtils, GrammarAST, UriUtils, type AstNode, type CstNode, type LangiumDocument, type MaybePromise } from 'langium';
-import { AstNodeHoverProvider } from 'langium/lsp';
+import { AstNodeHoverProvider, type LangiumServices } from 'langium/lsp';
 import type { Hover, HoverParams } from 'vscode-languageserver';
 import { isQuantity, type Quantity } from '../generated/ast.js';
 import { expectationFor } from '../semantics/quantity-expectations.js';
 import { readQuantity } from '../semantics/read-quantity.js';
 import { findRule, writtenParameterName } from '../semantics/rule-parameters.js';
+import type { AnalysisCache } from '../engine-bridge/analysis-cache.js';
 import { ELEMENT_NOUNS } from './element-nouns.js';
+import { elementHover } from './element-hover.js';
 import { keywordDoc } from './keyword-docs.js';
 
 /** Lines of a declaration shown in a hover before it is cut short. */
@@ -28,6 +30,13 @@ const MAX_COMMENT_LINES = 6;
  * from the engine's analysis: `getElementHoverContent` is where they go.
  */
 export class VacnetHoverProvider extends AstNodeHoverProvider {
+  private readonly engineServices: { engine?: { AnalysisCache?: AnalysisCache } };
+
+  constructor(services: LangiumServices) {
+    super(services);
+    this.engineServices = services as LangiumServices & { engine?: { AnalysisCache?: AnalysisCache } };
+  }
+
   override async getHoverContent(document: LangiumDocument, params: HoverParams): Promise<Hover | undefined> {
     const root = document.parseResult?.value?.$cstNode;
     if (!root) return undefined;
@@ -60,13 +69,15 @@ export class VacnetHoverProvider extends AstNodeHoverProvider {
   }
 
   /**
-   * Extension point: the computed values of an element (its vacuum and flow,
-   * its velocity, how they were computed) in markdown, shown above its
-   * declaration. Nothing here: the engine-backed hover fills it from the
-   * cached analysis of the document.
+   * The computed values of an element (its vacuum and flow, its velocity,
+   * how they were computed) in markdown, shown above its declaration: from
+   * the cached analysis of the hovered document's text version only; nothing
+   * while it is being computed.
    */
-  protected getElementHoverContent(_node: AstNode, _document: LangiumDocument): MaybePromise<string | undefined> {
-    return undefined;
+  protected getElementHoverContent(node: AstNode, document: LangiumDocument): MaybePromise<string | undefined> {
+    const cache = this.engineServices.engine?.AnalysisCache;
+    const state = cache?.current(document);
+    return state ? elementHover(node, state) : undefined;
   }
 
   /** Where a named element is declared: its noun and name, the comment above it, and its line(s). */

@@ -1,0 +1,40 @@
+import { parentPort, workerData } from 'node:worker_threads';
+import type { SystemModel } from '@vacnet/engine';
+import { runEngine } from './engine-run.js';
+
+/** What the server's entry passes as workerData to start a thread as an engine worker. */
+export const ENGINE_WORKER_ROLE = 'vacnet-engine-worker';
+
+export interface EngineJobMessage {
+  id: number;
+  model: SystemModel;
+}
+
+export type EngineReplyMessage =
+  | { id: number; ok: true; run: ReturnType<typeof runEngine>; ms: number }
+  | { id: number; ok: false; message: string };
+
+/** True when this thread was started as an engine worker. */
+export function isEngineWorker(): boolean {
+  return parentPort !== null && (workerData as { role?: unknown } | undefined)?.role === ENGINE_WORKER_ROLE;
+}
+
+/**
+ * The worker thread's side: answers each job with the engine's run of the
+ * model, or the error that stopped it. Needs only the engine, so the thread
+ * starts without loading the language services.
+ */
+export function serveEngineWorker(): void {
+  const port = parentPort;
+  if (!port) return;
+  port.on('message', (job: EngineJobMessage) => {
+    const started = performance.now();
+    let reply: EngineReplyMessage;
+    try {
+      reply = { id: job.id, ok: true, run: runEngine(job.model), ms: performance.now() - started };
+    } catch (error) {
+      reply = { id: job.id, ok: false, message: error instanceof Error ? error.message : String(error) };
+    }
+    port.postMessage(reply);
+  });
+}
