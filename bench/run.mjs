@@ -29,13 +29,20 @@ const names = requested.length > 0 ? requested : Object.keys(GROUPS);
 
 console.log(`node ${process.version}, ${os.cpus().length} x ${os.cpus()[0]?.model ?? 'cpu'}, ${os.platform()} ${os.arch()}`);
 
+// A group that fails is reported and skipped; the others' results are still written.
 const fresh = {};
+const failed = [];
 for (const name of names) {
   console.log(`\n## ${name}`);
-  const group = await import(GROUPS[name]);
-  const { metrics, notes = [] } = await group.run();
-  for (const note of notes) console.log(note);
-  Object.assign(fresh, metrics);
+  try {
+    const group = await import(GROUPS[name]);
+    const { metrics, notes = [] } = await group.run();
+    for (const note of notes) console.log(note);
+    Object.assign(fresh, metrics);
+  } catch (error) {
+    console.error(`bench: group '${name}' failed: ${error instanceof Error ? error.message : String(error)}`);
+    failed.push(name);
+  }
 }
 
 printTable(fresh);
@@ -47,6 +54,10 @@ for (const [name, metric] of Object.entries(fresh)) {
 }
 writeFileSync(resultsFile, JSON.stringify(merged, null, 2) + '\n');
 console.log(`\nwrote ${Object.keys(fresh).length} metrics to bench/results.json (${Object.keys(merged.metrics).length} in all)`);
+if (failed.length > 0) {
+  console.error(`bench: failed groups: ${failed.join(', ')}`);
+  process.exitCode = 1;
+}
 
 function readResults() {
   if (!existsSync(resultsFile)) return { metrics: {} };
