@@ -12,12 +12,22 @@ import { WorkerEngineRunner } from './engine-bridge/worker-engine-runner.js';
  */
 export function startServer(entry: string | undefined): void {
   const connection = createConnection(ProposedFeatures.all);
-  const { shared } = createVacnetServices(
+  const { shared, Vacnet } = createVacnetServices(
     { connection, ...NodeFileSystem },
     {
       liveAnalysis: true,
       ...(entry ? { engineRunner: () => new WorkerEngineRunner(entry), installDir: path.dirname(entry) } : {}),
     },
   );
+  // Where a document's analysis stands, for clients that show progress (and for tests): see docs/editor-settings.md.
+  connection.onRequest(ANALYSIS_STATUS_REQUEST, (params: { uri?: unknown }) => {
+    const state = typeof params?.uri === 'string' ? Vacnet.engine.AnalysisCache.state(params.uri) : undefined;
+    if (!state) return null;
+    const published = Vacnet.lsp.DiagnosticsPublisher.hasPublishedFinal(params.uri as string);
+    return { status: state.status, version: state.version, published, engineMs: state.engineMs ?? null };
+  });
   startLanguageServer(shared);
 }
+
+/** A request of our own: `{ uri }` -> `{ status, version, published, engineMs }` of the document's analysis, or null. */
+export const ANALYSIS_STATUS_REQUEST = 'vacnet/analysisStatus';

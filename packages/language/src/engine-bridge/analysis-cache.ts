@@ -188,7 +188,7 @@ export class AnalysisCache {
     const start = () => {
       this.timers.delete(uri);
       if (this.states.get(uri)?.generation !== generation) return;
-      void this.runner.run(uri, model).then((outcome) => {
+      void this.runner.run(uri, model, this.services.shared.workspace.TextDocuments?.get(uri) !== undefined).then((outcome) => {
         const latest = this.states.get(uri);
         // A newer build took over, or the text moved on since: this result is stale.
         if (!latest || latest.generation !== generation || latest.version !== this.versionOf(uri)) return;

@@ -10,7 +10,8 @@ export type EngineJobOutcome = { kind: 'done'; run: EngineRun; ms: number } | { 
  * never delays fresh work. Never rejects.
  */
 export interface EngineRunner {
-  run(key: string, model: SystemModel): Promise<EngineJobOutcome>;
+  /** `urgent`: the document is open in the editor; its job goes before those of closed workspace files. */
+  run(key: string, model: SystemModel, urgent?: boolean): Promise<EngineJobOutcome>;
   /** Cancels the job with this key, if any (a closed document). */
   cancel(key: string): void;
   dispose(): void;
@@ -26,7 +27,7 @@ export class InProcessEngineRunner implements EngineRunner {
   private readonly latest = new Map<string, number>();
   private counter = 0;
 
-  async run(key: string, model: SystemModel): Promise<EngineJobOutcome> {
+  async run(key: string, model: SystemModel, _urgent = true): Promise<EngineJobOutcome> {
     const ticket = ++this.counter;
     this.latest.set(key, ticket);
     await new Promise<void>((resolve) => setImmediate(resolve));

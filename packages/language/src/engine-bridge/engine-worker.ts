@@ -12,7 +12,9 @@ export interface EngineJobMessage {
 
 export type EngineReplyMessage =
   | { id: number; ok: true; run: ReturnType<typeof runEngine>; ms: number }
-  | { id: number; ok: false; message: string };
+  | { id: number; ok: false; message: string }
+  /** Sent once when the thread is ready for jobs. */
+  | { ready: true };
 
 /** True when this thread was started as an engine worker. */
 export function isEngineWorker(): boolean {
@@ -37,4 +39,5 @@ export function serveEngineWorker(): void {
     }
     port.postMessage(reply);
   });
+  port.postMessage({ ready: true } satisfies EngineReplyMessage);
 }

@@ -13,6 +13,7 @@ interface Job {
   id: number;
   key: string;
   model: SystemModel;
+  urgent: boolean;
   resolve: (outcome: EngineJobOutcome) => void;
   timer?: NodeJS.Timeout;
 }
@@ -26,6 +27,8 @@ interface Job {
  */
 export class WorkerEngineRunner implements EngineRunner {
   private worker: Worker | undefined;
+  /** The current thread has said it is ready (so a later loss is the job's doing, not a failed start). */
+  private ready = false;
   private running: Job | undefined;
   private readonly queue = new Map<string, Job>();
   private ids = 0;
@@ -43,12 +46,12 @@ export class WorkerEngineRunner implements EngineRunner {
 
   private readonly entry: string;
 
-  run(key: string, model: SystemModel): Promise<EngineJobOutcome> {
+  run(key: string, model: SystemModel, urgent = true): Promise<EngineJobOutcome> {
     if (this.fallback) return this.fallback.run(key, model);
     if (this.disposed) return Promise.resolve({ kind: 'cancelled' });
     this.cancel(key);
     return new Promise<EngineJobOutcome>((resolve) => {
-      this.queue.set(key, { id: ++this.ids, key, model, resolve });
+      this.queue.set(key, { id: ++this.ids, key, model, urgent, resolve });
       this.pump();
     });
   }
@@ -65,6 +68,7 @@ export class WorkerEngineRunner implements EngineRunner {
       this.running = undefined;
       this.restart();
       finish(job, { kind: 'cancelled' });
+      this.pump();
     }
   }
 
@@ -84,9 +88,10 @@ export class WorkerEngineRunner implements EngineRunner {
 
   private pump(): void {
     if (this.running || this.disposed) return;
-    const next = this.queue.values().next();
-    if (next.done) return;
-    const job = next.value;
+    // Open documents first, then in the order asked.
+    const jobs = [...this.queue.values()];
+    const job = jobs.find((j) => j.urgent) ?? jobs[0];
+    if (!job) return;
     this.queue.delete(job.key);
     const worker = this.ensureWorker();
     if (!worker) {
@@ -105,11 +110,11 @@ export class WorkerEngineRunner implements EngineRunner {
     const message: EngineJobMessage = { id: job.id, model: job.model };
     try {
       worker.postMessage(message);
-    } catch (error) {
+    } catch {
       // A model that cannot be cloned is a defect; run it here rather than lose it.
       this.running = undefined;
       clearTimeout(job.timer);
-      void this.toFallbackOnce(job, error);
+      void this.toFallback(job);
     }
   }
 
@@ -122,6 +127,7 @@ export class WorkerEngineRunner implements EngineRunner {
       worker.on('error', (error) => this.onWorkerLost(worker, error instanceof Error ? error.message : String(error)));
       worker.on('exit', (code) => this.onWorkerLost(worker, `the analysis thread stopped (exit code ${code})`));
       this.worker = worker;
+      this.ready = false;
       return worker;
     } catch {
       this.failures++;
@@ -131,6 +137,10 @@ export class WorkerEngineRunner implements EngineRunner {
 
   private onReply(worker: Worker, reply: EngineReplyMessage): void {
     if (worker !== this.worker) return;
+    if ('ready' in reply) {
+      this.ready = true;
+      return;
+    }
     const job = this.running;
     if (!job || job.id !== reply.id) return;
     this.running = undefined;
@@ -145,8 +155,15 @@ export class WorkerEngineRunner implements EngineRunner {
     this.failures++;
     const job = this.running;
     this.running = undefined;
-    if (job) finish(job, { kind: 'failed', message });
+    const startFailed = !this.ready;
     if (this.failures >= MAX_FAILURES_IN_A_ROW) this.fallback ??= new InProcessEngineRunner();
+    if (job) {
+      if (job.timer) clearTimeout(job.timer);
+      // A thread that never got ready failed to start: the job itself is fine, run it here.
+      // One that was running it died of the job (out of memory, say): report it, do not retry it here.
+      if (startFailed) void this.toFallback(job);
+      else finish(job, { kind: 'failed', message });
+    }
     if (this.fallback) {
       for (const queued of [...this.queue.values()]) {
         this.queue.delete(queued.key);
@@ -165,18 +182,10 @@ export class WorkerEngineRunner implements EngineRunner {
     if (!this.disposed && !this.fallback) this.ensureWorker();
   }
 
+  /** Runs a job on this thread (the worker cannot take it), then goes on with the queue. */
   private async toFallback(job: Job): Promise<void> {
     if (this.failures >= MAX_FAILURES_IN_A_ROW) this.fallback ??= new InProcessEngineRunner();
-    if (!this.fallback) {
-      // The thread could not start this time; try again with the next job, run this one here.
-      finish(job, await new InProcessEngineRunner().run(job.key, job.model));
-      return;
-    }
-    finish(job, await this.fallback.run(job.key, job.model));
-  }
-
-  private async toFallbackOnce(job: Job, _error: unknown): Promise<void> {
-    finish(job, await new InProcessEngineRunner().run(job.key, job.model));
+    finish(job, await (this.fallback ?? new InProcessEngineRunner()).run(job.key, job.model));
     this.pump();
   }
 }

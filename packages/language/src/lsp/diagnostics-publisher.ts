@@ -31,6 +31,8 @@ export class DiagnosticsPublisher {
   /** The analysis generation current when Langium last published a document: engine results join only that build's diagnostics. */
   private readonly structuralGeneration = new Map<string, number>();
   private readonly grace = new Map<string, NodeJS.Timeout>();
+  /** Per document: the analysis generation of the last publication, and whether it held the engine's part. */
+  private readonly lastPublished = new Map<string, { generation: number | undefined; complete: boolean }>();
   private send: ((params: PublishDiagnosticsParams) => void) | undefined;
   private inlayHintRefresh = false;
 
@@ -53,11 +55,11 @@ export class DiagnosticsPublisher {
     connection.sendDiagnostics = async (params: PublishDiagnosticsParams) => this.fromLangium(params);
   }
 
-  /** Everything this publisher would send for a document now (for tests and the headless comparison). */
-  diagnosticsFor(uri: string): Diagnostic[] {
+  /** Whether the diagnostics of the document's latest analysis, engine part included, have gone out. */
+  hasPublishedFinal(uri: string): boolean {
     const state = this.cache.state(uri);
-    const fresh = state && state.version === this.cache.versionOf(uri) ? state : undefined;
-    return this.combine(uri, fresh);
+    const last = this.lastPublished.get(uri);
+    return !!state && !!last && last.generation === state.generation && last.complete;
   }
 
   private fromLangium(params: PublishDiagnosticsParams): void {
@@ -66,7 +68,7 @@ export class DiagnosticsPublisher {
     const state = this.cache.state(uri);
     if (state) this.structuralGeneration.set(uri, state.generation);
     else this.structuralGeneration.delete(uri);
-    if (state && state.status === 'pending' && state.version === this.cache.versionOf(uri)) {
+    if (state && state.status === 'pending') {
       if (!this.grace.has(uri)) {
         const timer = setTimeout(() => {
           this.grace.delete(uri);
@@ -96,12 +98,19 @@ export class DiagnosticsPublisher {
     }
   }
 
+  /**
+   * Publishes Langium's diagnostics of the document's last build with the
+   * engine's findings of the same build (when in), labelled with the text
+   * version that build read.
+   */
   private publish(uri: string): void {
     if (!this.send) return;
     const state = this.cache.state(uri);
-    const version = this.cache.versionOf(uri);
-    const fresh = state && state.version === version ? state : undefined;
-    this.send({ uri, ...(version !== undefined && version > 0 ? { version } : {}), diagnostics: this.combine(uri, fresh) });
+    const sameBuild = state !== undefined && this.structuralGeneration.get(uri) === state.generation;
+    const engine = sameBuild && state.status !== 'pending' ? state : undefined;
+    const version = sameBuild ? state.version : this.cache.versionOf(uri);
+    this.send({ uri, ...(version !== undefined && version > 0 ? { version } : {}), diagnostics: this.combine(uri, engine) });
+    this.lastPublished.set(uri, { generation: sameBuild ? state.generation : undefined, complete: engine !== undefined });
   }
 
   private combine(uri: string, state: DocumentAnalysis | undefined): Diagnostic[] {

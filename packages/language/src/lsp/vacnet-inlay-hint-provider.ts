@@ -1,4 +1,4 @@
-import type { AstNode, LangiumDocument } from 'langium';
+import { CstUtils, type AstNode, type CstNode, type LangiumDocument } from 'langium';
 import type { InlayHintProvider, LangiumServices } from 'langium/lsp';
 import type { InlayHint, InlayHintParams, Position, Range } from 'vscode-languageserver';
 import type { InletAnalysis, PipeAnalysis, ProducerPoint } from '@vacnet/engine';
@@ -34,7 +34,7 @@ export class VacnetInlayHintProvider implements InlayHintProvider {
     const text = display(state.model?.displayUnits);
     const hints: InlayHint[] = [];
     const add = (node: AstNode | undefined, label: string, tooltip: string) => {
-      const end = node?.$cstNode?.range.end;
+      const end = node?.$cstNode && endOfFirstLine(node.$cstNode);
       if (!end || !inside(end, params.range)) return;
       hints.push({ position: end, label, paddingLeft: true, tooltip: { kind: 'markdown', value: tooltip } });
     };
@@ -105,6 +105,18 @@ function nodeOf(state: DocumentAnalysis, kind: 'inlet' | 'pipe' | 'producer', na
   const found = state.lowered?.sources.find({ kind, name });
   // A plant is indexed as a producer too (by the plant's name); hints go on the producer unit.
   return found && (kind !== 'producer' || found.node.$type === 'ProducerUnit') ? found.node : undefined;
+}
+
+/** The end of the last token on an element's first line: a hint sits after the line, also when the element goes on below. */
+function endOfFirstLine(cst: CstNode): Position {
+  const line = cst.range.start.line;
+  let end = cst.range.end;
+  for (const leaf of CstUtils.flattenCst(cst)) {
+    if (leaf.hidden) continue;
+    if (leaf.range.start.line !== line) break;
+    end = leaf.range.end;
+  }
+  return end;
 }
 
 function inside(position: Position, range: Range): boolean {
