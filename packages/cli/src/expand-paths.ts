@@ -1,6 +1,7 @@
 import { readdir, stat } from 'node:fs/promises';
-import { join, resolve } from 'node:path';
+import { join, relative, resolve } from 'node:path';
 import { UsageError } from './exit-codes.js';
+import { globBase, globToRegExp, hasGlob, toSlashes } from './glob-match.js';
 
 /** The extension of vacnet files. */
 export const VACNET_EXTENSION = '.vacnet';
@@ -9,18 +10,20 @@ export const VACNET_EXTENSION = '.vacnet';
  * Turns the paths given on the command line into the .vacnet files to check:
  * a file is taken as given; a folder is searched recursively, skipping
  * `node_modules` and folders whose name starts with a dot, and its files are
- * sorted so output is the same on every machine. Order follows the
- * arguments; a file named twice is checked once. Returns absolute paths.
+ * sorted so output is the same on every machine; a glob (with `*`, `**`,
+ * `?`, `[...]` or `{a,b}`, quoted so the shell leaves it alone) gives the
+ * .vacnet files it matches, sorted. Order follows the arguments; a file
+ * named twice is checked once. Returns absolute paths.
  *
- * Throws UsageError for a path that does not exist or a file that is not a
- * .vacnet file.
+ * Throws UsageError for a path that does not exist, a file that is not a
+ * .vacnet file, or a glob that matches no .vacnet file.
  */
 export async function expandPaths(args: readonly string[], cwd: string): Promise<string[]> {
   const seen = new Set<string>();
   const files: string[] = [];
   for (const arg of args) {
     const absolute = resolve(cwd, arg);
-    const found = await filesUnder(arg, absolute);
+    const found = hasGlob(arg) && !(await exists(absolute)) ? await globFiles(arg, cwd) : await filesUnder(arg, absolute);
     for (const file of found) {
       if (!seen.has(file)) {
         seen.add(file);
@@ -50,6 +53,38 @@ async function filesUnder(arg: string, absolute: string): Promise<string[]> {
     throw new UsageError(`${arg}: not a ${VACNET_EXTENSION} file`);
   }
   return [absolute];
+}
+
+async function exists(path: string): Promise<boolean> {
+  try {
+    await stat(path);
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+/** The .vacnet files a glob matches, searched from the folder its plain leading segments name. */
+async function globFiles(pattern: string, cwd: string): Promise<string[]> {
+  const plain = globBase(pattern);
+  const base = resolve(cwd, plain);
+  // Match below the plain folder only, so glob characters in the folder's own name do not count.
+  const rest = plain === '.' ? toSlashes(pattern).replace(/^(\.\/)+/, '') : toSlashes(pattern).slice(plain.length).replace(/^\/+/, '');
+  const matcher = globToRegExp(rest);
+  const candidates: string[] = [];
+  try {
+    if ((await stat(base)).isDirectory()) await walk(base, candidates);
+  } catch {
+    // A base folder that does not exist matches nothing; said below.
+  }
+  const found = candidates.filter((file) => matcher.test(toSlashes(relative(base, file)))).sort(byCodeUnits);
+  if (found.length === 0) throw new UsageError(`${pattern}: no ${VACNET_EXTENSION} files match`);
+  return found;
+}
+
+/** A path as the user would write it from the working folder (for messages). */
+export function shownPath(absolute: string, cwd: string): string {
+  return relative(cwd, absolute) || absolute;
 }
 
 async function walk(folder: string, found: string[]): Promise<void> {

@@ -1,5 +1,5 @@
 import { readFileSync } from 'node:fs';
-import { Command, CommanderError, Option } from 'commander';
+import { Command, CommanderError, InvalidArgumentError, Option } from 'commander';
 import { ExitCode } from './exit-codes.js';
 import { processIo, type CommandIo } from './io.js';
 
@@ -26,11 +26,16 @@ export async function main(argv: readonly string[], io: CommandIo = processIo())
     .summary('check .vacnet files for errors and design findings')
     .description(
       'Check .vacnet files and the catalogs they use. Folders are searched recursively ' +
-        '(node_modules and folders starting with "." are skipped).',
+        '(node_modules and folders starting with "." are skipped); quoted globs (*, **, ?, [..], {a,b}) are expanded. ' +
+        'Each file is checked with the project settings file (vacnet.json) found above it.',
     )
-    .argument('<paths...>', '.vacnet files or folders to check')
-    .addOption(new Option('-f, --format <format>', 'output format').choices(['text', 'json']).default('text'))
+    .argument('<paths...>', '.vacnet files, folders or globs to check')
+    .addOption(new Option('-f, --format <format>', 'output format').choices(['text', 'json', 'sarif', 'github']).default('text'))
     .option('--no-analysis', 'check structure and units only; skip the airflow analysis and design rules')
+    .option('--max-warnings <n>', 'exit 1 when there are more than n warnings', parseCount)
+    .option('-q, --quiet', 'print errors only (warnings still count for --max-warnings)')
+    .option('--settings <file>', 'use this project settings file instead of finding vacnet.json')
+    .option('--no-settings', 'use no project settings file')
     .addHelpText(
       'after',
       [
@@ -38,21 +43,72 @@ export async function main(argv: readonly string[], io: CommandIo = processIo())
         'Output (text): one line per finding, then for each analysed system its',
         'producer operating point and worst inlet, then a summary:',
         '  path:line:column severity code message',
-        'Lines and columns are 1-based in both formats.',
+        'Lines and columns are 1-based in every format. Colour on a terminal;',
+        'NO_COLOR=1 turns it off, FORCE_COLOR=1 turns it on for pipes.',
+        'sarif: a SARIF 2.1.0 log with rule help from docs/rules.',
+        'github: workflow annotation commands (::error file=...,line=...::message).',
         '',
         'Exit codes:',
-        '  0  no errors (warnings and infos allowed)',
-        '  1  at least one error',
+        '  0  no errors, and no more warnings than --max-warnings',
+        '  1  at least one error, or more warnings than --max-warnings',
         '  2  usage error, or a file or folder could not be read',
         '',
         'Examples:',
         '  vacnet check examples/',
-        '  vacnet check --format json plant.vacnet > findings.json',
+        "  vacnet check 'systems/**/*.vacnet' --max-warnings 0",
+        '  vacnet check --format sarif . > vacnet.sarif',
       ].join('\n'),
     )
-    .action(async (paths: string[], options: { format: 'text' | 'json'; analysis: boolean }) => {
+    .action(async (paths: string[], options: { format: 'text' | 'json' | 'sarif' | 'github'; analysis: boolean; maxWarnings?: number; quiet?: boolean; settings?: string | boolean }) => {
       const { runCheck } = await import('./commands/check.js');
-      exitCode = await runCheck(paths, { format: options.format, analysis: options.analysis }, io);
+      exitCode = await runCheck(
+        paths,
+        {
+          format: options.format,
+          analysis: options.analysis,
+          quiet: options.quiet === true,
+          version: readVersion(),
+          ...(options.maxWarnings !== undefined ? { maxWarnings: options.maxWarnings } : {}),
+          ...(options.settings !== undefined ? { settings: options.settings } : {}),
+        },
+        io,
+      );
+    });
+
+  program
+    .command('report')
+    .summary('write a design report (HTML or Markdown) for one .vacnet file')
+    .description(
+      'Analyse one .vacnet file and write its design report: summary and cautions, design basis, the producer curve ' +
+        'with the system demand, a schematic of the network, inlet and pipe tables, findings, bill of materials and the ' +
+        'commissioning test sheet. HTML is one self-contained page (no scripts, no network); Markdown links its two ' +
+        'figures as SVG files written beside it.',
+    )
+    .argument('<file>', 'the .vacnet file of the system')
+    .option('-o, --out <file>', 'write the report here (.html or .md); without it the report goes to stdout')
+    .addOption(new Option('-f, --format <format>', 'report format (default: from the --out extension, else html)').choices(['html', 'markdown']))
+    .addHelpText(
+      'after',
+      [
+        '',
+        'Markdown: with --out report.md, the figures are written beside it as',
+        'report.producer-curve.svg and report.schematic.svg and linked as images;',
+        'on stdout they are left out. Rule codes link to docs/rules when that',
+        'folder lies inside the working folder.',
+        '',
+        'Exit codes:',
+        '  0  report written',
+        '  1  report written, but the file has errors (the report lists them)',
+        '  2  usage error, or a file could not be read or written',
+        '',
+        'Examples:',
+        '  vacnet report plant.vacnet --out plant-report.html',
+        '  vacnet report plant.vacnet --out review/plant.md',
+      ].join('\n'),
+    )
+    .action(async (file: string, options: { out?: string; format?: 'html' | 'markdown' }) => {
+      const { runReport } = await import('./commands/report.js');
+      exitCode = await runReport(file, { ...options, version: readVersion() }, io);
     });
 
   try {
@@ -66,6 +122,12 @@ export async function main(argv: readonly string[], io: CommandIo = processIo())
     return ExitCode.usage;
   }
   return exitCode;
+}
+
+/** A whole number of at least 0, for options that count (commander calls this with the option's text). */
+function parseCount(text: string): number {
+  if (!/^\d+$/.test(text.trim())) throw new InvalidArgumentError('expected a whole number of 0 or more.');
+  return Number(text.trim());
 }
 
 /** The package version, read from package.json one folder above this file (dist/ in every build). */

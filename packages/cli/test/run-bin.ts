@@ -14,16 +14,26 @@ export interface BinRun {
   stderr: string;
 }
 
+export interface BinOptions {
+  /** Changes to the environment (undefined removes a variable); NO_COLOR=1 is set unless changed here. */
+  env?: Record<string, string | undefined>;
+  /** Text for stdin. */
+  input?: string;
+}
+
 /** Runs the built `vacnet` bin as a child process, as a shell or build pipeline would. */
-export function runBin(args: readonly string[], cwd: string = REPO_ROOT): BinRun {
+export function runBin(args: readonly string[], cwd: string = REPO_ROOT, options: BinOptions = {}): BinRun {
   if (!existsSync(BUNDLE)) {
     throw new Error(`${BUNDLE} is missing: run \`npm run build\` before the command-line tests.`);
   }
+  const env: Record<string, string | undefined> = { ...process.env, NO_COLOR: '1', ...options.env };
+  for (const key of Object.keys(env)) if (env[key] === undefined) delete env[key];
   const run = spawnSync(process.execPath, [BIN, ...args], {
     cwd,
     encoding: 'utf8',
     timeout: 60_000,
-    env: { ...process.env, NO_COLOR: '1' },
+    env,
+    ...(options.input !== undefined ? { input: options.input } : {}),
   });
   if (run.error) throw run.error;
   return { status: run.status, stdout: run.stdout, stderr: run.stderr };

@@ -1,4 +1,4 @@
-import { parseNumberText, toSI, type Dimension, type RuleParameter, type RuleSetting, type SeverityOverride, type SystemModel } from '@vacnet/engine';
+import { parseNumberText, RULES, toSI, type Dimension, type RuleParameter, type RuleSetting, type SeverityOverride, type SystemModel } from '@vacnet/engine';
 import type { SourceRange, VacnetDiagnostic } from '../diagnostic.js';
 import type { System } from '../generated/ast.js';
 import { findParameter, findRule, parameterName, writtenParameterName } from '../semantics/rule-parameters.js';
@@ -136,7 +136,8 @@ function readRules(member: JsonMember, settings: ProjectSettings, diagnostics: V
   for (const entry of uniqueMembers(rules, diagnostics)) {
     const rule = findRule(entry.key);
     if (!rule) {
-      diagnostics.push(unknown(`No design rule has the code '${entry.key}'; the rule codes are the page names in docs/rules/.`, entry.keyRange));
+      const codes = RULES.map((r) => r.code);
+      diagnostics.push(unknown(`No design rule has the code '${entry.key}'${suggestion(entry.key, codes)}; the rule codes are the page names in docs/rules/.`, entry.keyRange));
       continue;
     }
     if (entry.value.kind !== 'object') {
