@@ -7,7 +7,7 @@
 // dist/). `tsc -b` type-checks before this runs (see the root `build` script).
 // An entry whose source is missing is skipped with a message.
 import { build } from 'esbuild';
-import { existsSync, rmSync, statSync } from 'node:fs';
+import { existsSync, readdirSync, rmSync, statSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 
 const root = fileURLToPath(new URL('..', import.meta.url));
@@ -43,7 +43,9 @@ const entries = [
   {
     label: 'command line',
     source: 'packages/cli/src/main.ts',
-    clean: ['packages/cli/dist/chunks'],
+    // Chunks of earlier builds are removed after the new ones are written, so a
+    // `vacnet` started meanwhile (a test in another terminal) still finds its files.
+    prune: ['packages/cli/dist/chunks'],
     options: {
       entryPoints: { vacnet: at('packages/cli/src/main.ts') },
       outdir: at('packages/cli/dist'),
@@ -85,9 +87,15 @@ for (const entry of entries) {
     console.log(`bundle: skipped the ${entry.label}: ${entry.source} does not exist yet`);
     continue;
   }
-  for (const folder of entry.clean ?? []) rmSync(at(folder), { recursive: true, force: true });
   try {
     const result = await build({ ...common, ...entry.options });
+    const written = new Set(Object.keys(result.metafile.outputs).map((file) => at(file)));
+    for (const folder of entry.prune ?? []) {
+      for (const name of existsSync(at(folder)) ? readdirSync(at(folder)) : []) {
+        const file = `${at(folder)}/${name}`;
+        if (!written.has(file)) rmSync(file, { force: true });
+      }
+    }
     const outputs = Object.keys(result.metafile.outputs).filter((file) => !file.endsWith('.map'));
     const bytes = outputs.reduce((sum, file) => sum + statSync(at(file)).size, 0);
     console.log(`bundle: ${entry.label} -> ${outputs.length === 1 ? outputs[0] : `${outputs.length} files in ${entry.options.outdir.slice(root.length)}`} (${(bytes / 1e6).toFixed(1)} MB)`);
