@@ -8,19 +8,31 @@ import { R_AIR, STANDARD_DENSITY } from '../air/standard-air.js';
 import { caseElements, type NetworkGraph } from '../network/graph.js';
 import type { ScenarioOpening } from '../network/model.js';
 import { solveNetwork } from '../solve/solve-network.js';
-import type { SolveEffort, SolveFailure, SolveResult, SolvedState } from '../solve/solve-types.js';
+import type { SolveEffort, SolveFailure, SolveResult } from '../solve/solve-types.js';
 import type { InletPoint, PipePoint, ToolState } from './analysis-types.js';
+import { PathFlowSolver, type PathEntry, type PathSolved } from './path-flow-solver.js';
 import { pathElements, type PathTree } from './path-tree.js';
 
 export type CaseMode = 'tool' | 'orifice';
+
+// Cases of up to this many open inlets keep their own starting-flow scale (our choice; larger share one).
+const MAX_SCALED_SIZE = 64;
+
+/** What a case view reads: node pressures and element flows (the solver's state, or the path solver's). */
+export interface CaseState {
+  nodes: ArrayLike<number>;
+  pressurePa: ArrayLike<number>;
+  elements: ArrayLike<number>;
+  flowKgPerS: ArrayLike<number>;
+}
 
 /** A solved state with lookups by node and element. */
 export class CaseView {
   private readonly pressure = new Map<number, number>();
   private readonly flow = new Map<number, number>();
-  constructor(readonly state: SolvedState) {
-    state.nodes.forEach((node, i) => this.pressure.set(node, state.pressurePa[i]!));
-    state.elements.forEach((e, i) => this.flow.set(e, state.flowKgPerS[i]!));
+  constructor(readonly state: CaseState) {
+    for (let i = 0; i < state.nodes.length; i++) this.pressure.set(state.nodes[i]!, state.pressurePa[i]!);
+    for (let i = 0; i < state.elements.length; i++) this.flow.set(state.elements[i]!, state.flowKgPerS[i]!);
   }
   pressureAt(node: number): number | undefined {
     return this.pressure.get(node);
@@ -48,8 +60,17 @@ export class CaseRunner {
   private readonly lastFlow: Float64Array;
   private readonly lastDrop: Float64Array;
   private readonly producerMemory = new Map<number, { flow: number; inletPa: number; slope: number }>();
-  private readonly entryFlow = new Map<string, number>();
+  /**
+   * Each inlet's entry flow by state (working, lifted, orifice): the last
+   * seen [0..3) and the one it had open alone [3..6) (NaN unknown); any
+   * inlet's last; and, per state and number of open inlets, how the flows
+   * of the last such case compared with the inlets' flows alone.
+   */
+  private readonly entryFlow = new Map<string, Float64Array>();
+  private readonly anyEntryFlow = new Float64Array(3).fill(Number.NaN);
+  private readonly sizeScale = new Float64Array(3 * (MAX_SCALED_SIZE + 1)).fill(1);
   private readonly treeStart: Float64Array;
+  private readonly pathSolver: PathFlowSolver;
 
   constructor(
     readonly graph: NetworkGraph,
@@ -62,6 +83,7 @@ export class CaseRunner {
     this.stamp = new Int32Array(m);
     this.lastFlow = new Float64Array(m);
     this.lastDrop = new Float64Array(m);
+    this.pathSolver = new PathFlowSolver(graph, tree);
   }
 
   /** The piping path of an inlet (tree mode), cached. */
@@ -78,6 +100,15 @@ export class CaseRunner {
   /** Solves one case: the given inlets open with their tools (or the test orifice in the valve). */
   solve(openings: readonly ScenarioOpening[], mode: CaseMode = 'tool', fixedOverridesPa?: ReadonlyMap<number, number>, dropProducers = false): CaseOutcome {
     const exact = this.tree.exact;
+    if (exact) {
+      const fast = this.solveByFlows(openings, mode, fixedOverridesPa, dropProducers);
+      if (fast) {
+        for (let i = 0; i < fast.nodes.length; i++) this.guess[fast.nodes[i]!] = fast.pressurePa[i]!;
+        const view = new CaseView(fast);
+        this.learnEntryFlows(view, openings, mode, fixedOverridesPa === undefined || fixedOverridesPa.size === 0);
+        return { ok: true, view };
+      }
+    }
     const base = caseElements(this.graph, openings, { testOrifice: mode === 'orifice', withoutPiping: exact });
     if (!base.ok) return { ok: false, failure: base.failure };
     let elements = base.elements;
@@ -110,12 +141,67 @@ export class CaseRunner {
     return { ok: true, view };
   }
 
-  private entryKey(o: ScenarioOpening, mode: CaseMode): string {
-    return `${o.inlet}|${mode === 'orifice' ? 'orifice' : o.toolState}`;
+  /**
+   * A tree case by its inlet flows (path-flow-solver.ts), started from each
+   * inlet's last flow in its state; null when that solver cannot take it
+   * (no flows seen yet, other held pressures, a repeated inlet, or a case
+   * it hands back), and the network solver then does.
+   */
+  private solveByFlows(openings: readonly ScenarioOpening[], mode: CaseMode, fixed: ReadonlyMap<number, number> | undefined, dropProducers: boolean): PathSolved | null {
+    const g = this.graph;
+    let rootPa: number | undefined;
+    if (fixed && fixed.size > 0) {
+      if (!dropProducers || fixed.size !== 1) return null;
+      const [[node, pa]] = [...fixed.entries()] as [[number, number]];
+      if (!this.tree.rootProducers.has(node)) return null;
+      rootPa = pa;
+    } else if (dropProducers) {
+      return null;
+    }
+    const entries: PathEntry[] = [];
+    const x0: number[] = [];
+    const seen = new Set<string>();
+    for (const o of openings) {
+      if (seen.has(o.inlet)) return null;
+      seen.add(o.inlet);
+      const ti = g.topology.inlets.get(o.inlet);
+      const ie = g.inletElements.get(o.inlet);
+      if (!ti || !ie || ti.node < 0) return null;
+      if (rootPa !== undefined && this.tree.root[ti.node] !== [...fixed!.keys()][0]) return null;
+      const q = this.startFlow(o, mode, openings.length);
+      if (q === undefined || !(q > 0)) return null;
+      x0.push(q);
+      entries.push(
+        mode === 'orifice'
+          ? { valve: ti.node, hose: -1, hoseEnd: -1, entry: ie.testOrifice }
+          : { valve: ti.node, hose: ie.hose, hoseEnd: ti.hoseEndNode, entry: o.toolState === 'lifted' ? ie.toolLifted : ie.toolWorking },
+      );
+    }
+    return this.pathSolver.solve(entries, x0, rootPa, this.effort);
   }
 
-  private stateKey(o: ScenarioOpening, mode: CaseMode): string {
-    return `(any)|${mode === 'orifice' ? 'orifice' : o.toolState}`;
+  private static stateIndex(o: ScenarioOpening, mode: CaseMode): number {
+    return mode === 'orifice' ? 2 : o.toolState === 'lifted' ? 1 : 0;
+  }
+
+  /** This inlet's last entry flow in this state, else the last any inlet had in it. */
+  private lastEntryFlow(o: ScenarioOpening, mode: CaseMode): number | undefined {
+    const s = CaseRunner.stateIndex(o, mode);
+    const own = this.entryFlow.get(o.inlet)?.[s];
+    const q = own !== undefined && !Number.isNaN(own) ? own : this.anyEntryFlow[s]!;
+    return Number.isNaN(q) ? undefined : q;
+  }
+
+  /**
+   * A starting flow for an inlet in a case of `size` open inlets: its flow
+   * alone scaled as the last case of that size and state fell from its
+   * inlets' flows alone, else its last flow in this state.
+   */
+  private startFlow(o: ScenarioOpening, mode: CaseMode, size: number): number | undefined {
+    const s = CaseRunner.stateIndex(o, mode);
+    const alone = this.entryFlow.get(o.inlet)?.[3 + s];
+    if (alone !== undefined && alone > 0) return alone * this.sizeScale[s * (MAX_SCALED_SIZE + 1) + Math.min(size, MAX_SCALED_SIZE)]!;
+    return this.lastEntryFlow(o, mode);
   }
 
   /**
@@ -133,7 +219,7 @@ export class CaseRunner {
     const roots = new Map<number, number>();
     for (const o of openings) {
       // This inlet's last flow in this state, else the last any inlet had in it.
-      const q = this.entryFlow.get(this.entryKey(o, mode)) ?? this.entryFlow.get(this.stateKey(o, mode));
+      const q = this.lastEntryFlow(o, mode);
       if (q === undefined || !(q > 0)) return null;
       for (const e of this.pathOf(o.inlet)) flows.set(e, (flows.get(e) ?? 0) + q);
       const node = g.topology.inlets.get(o.inlet)!.node;
@@ -216,15 +302,39 @@ export class CaseRunner {
         this.producerMemory.set(net.elementA[e]!, { flow, inletPa: pa, slope: d > 0 ? 1 / d : 0 });
       }
     }
+    this.learnEntryFlows(view, openings, mode, fixed === undefined || fixed.size === 0);
+  }
+
+  /** Remembers each open inlet's entry flow, the start of the next case by flows. */
+  private learnEntryFlows(view: CaseView, openings: readonly ScenarioOpening[], mode: CaseMode, plain: boolean): void {
+    const size = openings.length;
+    const ratioSum = [0, 0, 0];
+    const ratioCount = [0, 0, 0];
     for (const o of openings) {
-      const ie = g.inletElements.get(o.inlet);
+      const ie = this.graph.inletElements.get(o.inlet);
       if (!ie) continue;
       const entry = mode === 'orifice' ? ie.testOrifice : o.toolState === 'lifted' ? ie.toolLifted : ie.toolWorking;
       const m = view.flowOf(entry);
       if (m !== undefined && m > 0) {
-        this.entryFlow.set(this.entryKey(o, mode), m);
-        this.entryFlow.set(this.stateKey(o, mode), m);
+        const s = CaseRunner.stateIndex(o, mode);
+        let own = this.entryFlow.get(o.inlet);
+        if (!own) {
+          own = new Float64Array(6).fill(Number.NaN);
+          this.entryFlow.set(o.inlet, own);
+        }
+        own[s] = m;
+        this.anyEntryFlow[s] = m;
+        // The producer held at a pressure (demand search) is no ordinary case.
+        if (plain && size === 1) own[3 + s] = m;
+        const alone = own[3 + s]!;
+        if (plain && size > 1 && alone > 0) {
+          ratioSum[s]! += m / alone;
+          ratioCount[s]!++;
+        }
       }
+    }
+    for (let s = 0; s < 3; s++) {
+      if (ratioCount[s]! > 0 && size <= MAX_SCALED_SIZE) this.sizeScale[s * (MAX_SCALED_SIZE + 1) + size] = ratioSum[s]! / ratioCount[s]!;
     }
   }
 

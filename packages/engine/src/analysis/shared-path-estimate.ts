@@ -65,18 +65,62 @@ export interface Partner {
   q: number;
 }
 
-/** F(P) for a set of partners (see the file comment). */
+// Scratch for estimateLoss: partners in the order it sums them.
+let orderShared = new Float64Array(16);
+let orderQ = new Float64Array(16);
+
+/**
+ * F(P) for a set of partners (see the file comment): partners sharing
+ * nothing are left out, the rest taken deepest first (ties in the order
+ * given), without allocating.
+ */
 export function estimateLoss(basis: InletBasis, partners: readonly Partner[]): number {
-  const sorted = [...partners].filter((p) => p.shared >= 0).sort((x, y) => y.shared - x.shared);
+  if (partners.length > orderShared.length) {
+    orderShared = new Float64Array(2 * partners.length);
+    orderQ = new Float64Array(2 * partners.length);
+  }
+  // Stable insertion by shared depth, deepest first.
+  let count = 0;
+  for (const p of partners) {
+    if (!(p.shared >= 0)) continue;
+    let at = count;
+    while (at > 0 && orderShared[at - 1]! < p.shared) {
+      orderShared[at] = orderShared[at - 1]!;
+      orderQ[at] = orderQ[at - 1]!;
+      at--;
+    }
+    orderShared[at] = p.shared;
+    orderQ[at] = p.q;
+    count++;
+  }
   let f = 0;
   let q = 0;
-  for (let r = 0; r < sorted.length; r++) {
-    q += sorted[r]!.q;
-    const hi = Math.min(sorted[r]!.shared, basis.depth);
-    const lo = r + 1 < sorted.length ? Math.min(sorted[r + 1]!.shared, basis.depth) : 0;
+  for (let r = 0; r < count; r++) {
+    q += orderQ[r]!;
+    const hi = Math.min(orderShared[r]!, basis.depth);
+    const lo = r + 1 < count ? Math.min(orderShared[r + 1]!, basis.depth) : 0;
     if (hi > lo) f += (2 * basis.m * q + q * q) * (basis.prefixC[hi]! - basis.prefixC[lo]!);
   }
   return f + q * basis.producerSlope;
+}
+
+/**
+ * estimateLoss for the partners idx[0..r) of a pool given as arrays of
+ * shared depth and flow, with idx already in non-increasing shared depth
+ * (the same sum, term for term, without sorting or allocating).
+ */
+export function estimateLossOrdered(basis: InletBasis, shared: Float64Array, q: Float64Array, idx: Int32Array, r: number): number {
+  let count = 0;
+  while (count < r && shared[idx[count]!]! >= 0) count++; // partners sharing nothing come last
+  let f = 0;
+  let total = 0;
+  for (let j = 0; j < count; j++) {
+    total += q[idx[j]!]!;
+    const hi = Math.min(shared[idx[j]!]!, basis.depth);
+    const lo = j + 1 < count ? Math.min(shared[idx[j + 1]!]!, basis.depth) : 0;
+    if (hi > lo) f += (2 * basis.m * total + total * total) * (basis.prefixC[hi]! - basis.prefixC[lo]!);
+  }
+  return f + total * basis.producerSlope;
 }
 
 /** Candidates that k-1 others do not beat on both shared depth and flow. */

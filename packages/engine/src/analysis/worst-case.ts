@@ -18,7 +18,7 @@ import type { SolveFailure } from '../solve/solve-types.js';
 import type { InletPoint, WorstCase, WorstCaseMethod } from './analysis-types.js';
 import { meetingNode, type PathTree } from './path-tree.js';
 import { SetEvaluator } from './set-evaluator.js';
-import { estimateLoss, paretoPool, type InletBasis, type Partner } from './shared-path-estimate.js';
+import { estimateLoss, estimateLossOrdered, paretoPool, type InletBasis, type Partner } from './shared-path-estimate.js';
 
 export interface WorstCaseInput {
   evaluator: SetEvaluator;
@@ -271,9 +271,32 @@ function rankSets(basis: InletBasis | null, pool: Partner[], r: number, want: nu
   const score = basis
     ? (set: Partner[]) => estimateLoss(basis, set)
     : (set: Partner[]) => set.reduce((s, p) => s + (p.shared + 1) * p.q, 0);
-  const seen = new Map<string, { set: Partner[]; f: number }>();
+  const seen = new Map<number | string, { set: Partner[]; f: number }>();
+  // A set's key: its size, then its inlet indices in ascending order, as
+  // digits of a number while that stays exact, else as text.
+  let base = 2;
+  for (const p of pool) base = Math.max(base, p.index + 2);
+  const numericKeys = (r + 1) * Math.log2(base) < 52;
+  const sorted: number[] = [];
+  const keyOf = (set: Partner[]): number | string => {
+    sorted.length = 0;
+    for (const p of set) {
+      // Insertion: sets are a handful of partners.
+      let at = sorted.length;
+      sorted.push(p.index);
+      while (at > 0 && sorted[at - 1]! > p.index) {
+        sorted[at] = sorted[at - 1]!;
+        at--;
+      }
+      sorted[at] = p.index;
+    }
+    if (!numericKeys) return sorted.join(',');
+    let key = set.length;
+    for (const i of sorted) key = key * base + i + 1;
+    return key;
+  };
   const note = (set: Partner[]): number => {
-    const key = set.map((p) => p.index).sort((a, b) => a - b).join(',');
+    const key = keyOf(set);
     let hit = seen.get(key);
     if (!hit) {
       hit = { set: [...set], f: score(set) };
@@ -282,15 +305,7 @@ function rankSets(basis: InletBasis | null, pool: Partner[], r: number, want: nu
     return hit.f;
   };
   if (binomialUpTo(pool.length, r, ENUMERATE_POOL_LIMIT + 1) <= ENUMERATE_POOL_LIMIT) {
-    const idx = Array.from({ length: r }, (_, j) => j);
-    for (;;) {
-      note(idx.map((j) => pool[j]!));
-      let pos = r - 1;
-      while (pos >= 0 && idx[pos] === pool.length - r + pos) pos--;
-      if (pos < 0) break;
-      idx[pos]!++;
-      for (let j = pos + 1; j < r; j++) idx[j] = idx[j - 1]! + 1;
-    }
+    return enumerateSets(basis, pool, r, want);
   } else {
     // Greedy: add the partner that raises the estimate most.
     const chosen: Partner[] = [];
@@ -327,11 +342,74 @@ function rankSets(basis: InletBasis | null, pool: Partner[], r: number, want: nu
       }
     }
   }
-  const ranked = [...seen.values()].filter((x) => x.set.length === r).sort((a, b) => b.f - a.f);
+  // The `want` best full sets, an earlier one first on a tie (as a stable sort would).
+  const ranked: { set: Partner[]; f: number }[] = [];
+  for (const x of seen.values()) {
+    if (x.set.length !== r) continue;
+    let at = ranked.length;
+    while (at > 0 && ranked[at - 1]!.f < x.f) at--;
+    if (at >= want) continue;
+    ranked.splice(at, 0, x);
+    if (ranked.length > want) ranked.pop();
+  }
   // Runners-up are solved only when the estimate rates them close to the best.
   const top = ranked[0]?.f ?? 0;
-  return ranked
-    .slice(0, want)
-    .filter((x, idx) => idx === 0 || x.f >= (1 - CLOSE_CALL) * top)
-    .map((x) => x.set.map((p) => p.index));
+  return ranked.filter((x, idx) => idx === 0 || x.f >= (1 - CLOSE_CALL) * top).map((x) => x.set.map((p) => p.index));
+}
+
+/**
+ * rankSets over every r-subset of the pool, without keys or copies: the
+ * subsets are distinct by construction (the pool holds each partner once),
+ * and the pool is ordered by shared depth, deepest first, so each subset
+ * taken in pool order is already in the order estimateLoss sorts into.
+ * Keeps the `want` best with the same ties as a stable sort of the
+ * enumeration order (an earlier subset wins a tie).
+ */
+function enumerateSets(basis: InletBasis | null, pool: Partner[], r: number, want: number): number[][] {
+  const n = pool.length;
+  const shared = Float64Array.from(pool, (p) => p.shared);
+  const q = Float64Array.from(pool, (p) => p.q);
+  const ordered = shared.every((x, j) => j === 0 || x <= shared[j - 1]!);
+  const subset: Partner[] = new Array(r);
+  const score = (idx: Int32Array): number => {
+    if (!basis) {
+      let f = 0;
+      for (let j = 0; j < r; j++) f += (shared[idx[j]!]! + 1) * q[idx[j]!]!;
+      return f;
+    }
+    if (!ordered) {
+      for (let j = 0; j < r; j++) subset[j] = pool[idx[j]!]!;
+      return estimateLoss(basis, subset);
+    }
+    return estimateLossOrdered(basis, shared, q, idx, r);
+  };
+  const bestF: number[] = [];
+  const bestSet: Int32Array[] = [];
+  const idx = new Int32Array(r);
+  for (let j = 0; j < r; j++) idx[j] = j;
+  for (;;) {
+    const f = score(idx);
+    // Insert after every kept subset with f >= this one (stable order).
+    let at = bestF.length;
+    while (at > 0 && bestF[at - 1]! < f) at--;
+    if (at < want) {
+      bestF.splice(at, 0, f);
+      bestSet.splice(at, 0, idx.slice());
+      if (bestF.length > want) {
+        bestF.pop();
+        bestSet.pop();
+      }
+    }
+    let pos = r - 1;
+    while (pos >= 0 && idx[pos] === n - r + pos) pos--;
+    if (pos < 0) break;
+    idx[pos]!++;
+    for (let j = pos + 1; j < r; j++) idx[j] = idx[j - 1]! + 1;
+  }
+  const top = bestF[0] ?? 0;
+  const out: number[][] = [];
+  bestSet.forEach((set, k) => {
+    if (k === 0 || bestF[k]! >= (1 - CLOSE_CALL) * top) out.push(Array.from(set, (j) => pool[j]!.index));
+  });
+  return out;
 }

@@ -7,8 +7,10 @@ import { R_AIR } from '../air/standard-air.js';
 import { airViscosity } from '../air/viscosity.js';
 import { churchillProduct, type FrictionProduct } from '../friction/churchill.js';
 import { colebrookFrictionFactor } from '../friction/colebrook.js';
+import { guardRoughness } from '../friction/friction-inputs.js';
 import { isothermalChoking, isothermalFlow, isothermalOutletPressure, type IsothermalPipe } from './isothermal-pipe.js';
-import type { PortFlow, TwoPortLaw } from './two-port-law.js';
+import { PipeFlowKernel, type PipeKernelResult } from './pipe-flow-kernel.js';
+import type { PortFlow, TwoPortLaw, UpstreamPressure } from './two-port-law.js';
 
 export interface PipeLawParams {
   /** Inside diameter, m. */
@@ -54,6 +56,25 @@ export function pipeParamProblems(p: PipeLawParams): PipeParamProblem[] {
 
 export type FrictionModel = 'churchill' | 'colebrook';
 
+interface GuardedPipe {
+  lengthM: number;
+  roughnessM: number;
+  sumK: number;
+  temperatureK: number;
+  multiplier: number;
+}
+
+/** The guarded values of isothermalPipeOf (diameter checked by the caller). */
+function guardedPipe(p: PipeLawParams): GuardedPipe {
+  return {
+    lengthM: Number.isFinite(p.lengthM) ? Math.max(MIN_LENGTH_M, p.lengthM) : MIN_LENGTH_M,
+    roughnessM: Number.isFinite(p.roughnessM) && p.roughnessM > 0 ? p.roughnessM : 0,
+    sumK: Number.isFinite(p.sumK) && p.sumK > 0 ? p.sumK : 0,
+    temperatureK: Number.isFinite(p.temperatureK) && p.temperatureK > 0 ? p.temperatureK : 293.15,
+    multiplier: p.frictionMultiplier !== undefined && Number.isFinite(p.frictionMultiplier) && p.frictionMultiplier > 0 ? p.frictionMultiplier : 1,
+  };
+}
+
 /**
  * The pipe as the isothermal-flow core sees it, with guarded values:
  * length below 1 mm -> 1 mm; negative or non-finite roughness -> 0; negative
@@ -64,12 +85,9 @@ export type FrictionModel = 'churchill' | 'colebrook';
  */
 export function isothermalPipeOf(p: PipeLawParams, model: FrictionModel = 'churchill'): IsothermalPipe | undefined {
   if (!(p.diameterM > 0) || !Number.isFinite(p.diameterM)) return undefined;
-  const lengthM = Number.isFinite(p.lengthM) ? Math.max(MIN_LENGTH_M, p.lengthM) : MIN_LENGTH_M;
-  const roughness = Number.isFinite(p.roughnessM) && p.roughnessM > 0 ? p.roughnessM : 0;
-  const sumK = Number.isFinite(p.sumK) && p.sumK > 0 ? p.sumK : 0;
-  const t = Number.isFinite(p.temperatureK) && p.temperatureK > 0 ? p.temperatureK : 293.15;
-  const mult = p.frictionMultiplier !== undefined && Number.isFinite(p.frictionMultiplier) && p.frictionMultiplier > 0 ? p.frictionMultiplier : 1;
-  const rr = roughness / p.diameterM;
+  const g = guardedPipe(p);
+  const mult = g.multiplier;
+  const rr = g.roughnessM / p.diameterM;
   const friction =
     model === 'churchill'
       ? (re: number): FrictionProduct => {
@@ -78,7 +96,7 @@ export function isothermalPipeOf(p: PipeLawParams, model: FrictionModel = 'churc
         }
       : // Colebrook (turbulent) for reporting and checks; its derivative is not needed there.
         (re: number): FrictionProduct => ({ fRe: re > 0 ? mult * re * colebrookFrictionFactor(re, rr) : 64 * mult, dFReDRe: 0 });
-  return { diameterM: p.diameterM, lengthM, sumK, rt: R_AIR * t, viscosityPaS: airViscosity(t), friction };
+  return { diameterM: p.diameterM, lengthM: g.lengthM, sumK: g.sumK, rt: R_AIR * g.temperatureK, viscosityPaS: airViscosity(g.temperatureK), friction };
 }
 
 function guardPressure(p: number): number {
@@ -94,24 +112,72 @@ function guardPressure(p: number): number {
  * derivatives are those at 1 Pa, so a solver is pushed back); a pipe with no
  * positive diameter is closed (zero flow, zero derivatives): report it with
  * pipeParamProblems before solving.
+ * Evaluation goes through PipeFlowKernel (warm-started, no allocation with
+ * `flowInto`); the choked branch through isothermalFlow.
  */
 export function pipeLaw(params: PipeLawParams): TwoPortLaw {
   const pipe = isothermalPipeOf(params);
+  if (!pipe) {
+    return {
+      flow: () => ({ massFlowKgPerS: 0, dFlowDPa: 0, dFlowDPb: 0 }),
+      flowInto(_pa: number, _pb: number, out: PortFlow) {
+        out.massFlowKgPerS = 0;
+        out.dFlowDPa = 0;
+        out.dFlowDPb = 0;
+        out.limited = undefined;
+      },
+    };
+  }
+  const g = guardedPipe(params);
+  const kernel = new PipeFlowKernel({
+    diameterM: pipe.diameterM,
+    lengthM: pipe.lengthM,
+    sumK: pipe.sumK,
+    rt: pipe.rt,
+    viscosityPaS: pipe.viscosityPaS,
+    relativeRoughness: guardRoughness(g.roughnessM / pipe.diameterM),
+    multiplier: g.multiplier,
+  });
+  const r: PipeKernelResult = { massFlowKgPerS: 0, dFlowDP1: 0, dFlowDP2: 0, beyondChoking: false };
+  const into = (pa: number, pb: number, out: PortFlow): void => {
+    const a = guardPressure(pa);
+    const b = guardPressure(pb);
+    const forward = a >= b;
+    const p1 = forward ? a : b;
+    const p2 = forward ? b : a;
+    kernel.solve(p1, p2, r);
+    let m = r.massFlowKgPerS;
+    let d1 = r.dFlowDP1;
+    let d2 = r.dFlowDP2;
+    out.limited = undefined;
+    if (r.beyondChoking) {
+      const c = isothermalFlow(pipe, p1, p2);
+      m = c.massFlowKgPerS;
+      d1 = c.dFlowDP1;
+      d2 = c.dFlowDP2;
+      if (c.choked) out.limited = 'choked';
+    }
+    if (forward) {
+      out.massFlowKgPerS = m;
+      out.dFlowDPa = d1;
+      out.dFlowDPb = d2;
+    } else {
+      out.massFlowKgPerS = 0 - m; // 0 - x: no -0
+      out.dFlowDPa = 0 - d2;
+      out.dFlowDPb = 0 - d1;
+    }
+  };
   return {
     flow(pa: number, pb: number): PortFlow {
-      if (!pipe) return { massFlowKgPerS: 0, dFlowDPa: 0, dFlowDPb: 0 };
-      const a = guardPressure(pa);
-      const b = guardPressure(pb);
-      if (a >= b) {
-        const r = isothermalFlow(pipe, a, b);
-        const out: PortFlow = { massFlowKgPerS: r.massFlowKgPerS, dFlowDPa: r.dFlowDP1, dFlowDPb: r.dFlowDP2 };
-        if (r.choked) out.limited = 'choked';
-        return out;
-      }
-      const r = isothermalFlow(pipe, b, a);
-      const out: PortFlow = { massFlowKgPerS: 0 - r.massFlowKgPerS, dFlowDPa: 0 - r.dFlowDP2, dFlowDPb: 0 - r.dFlowDP1 }; // 0 - x: no -0
-      if (r.choked) out.limited = 'choked';
+      const out: PortFlow = { massFlowKgPerS: 0, dFlowDPa: 0, dFlowDPb: 0 };
+      into(pa, pb, out);
+      if (out.limited === undefined) delete out.limited;
       return out;
+    },
+    flowInto: into,
+    upstreamPressureInto(m: number, pDown: number, out: UpstreamPressure): boolean {
+      if (!(m >= 0) || !Number.isFinite(m) || !(pDown > PRESSURE_FLOOR_PA) || !Number.isFinite(pDown)) return false;
+      return kernel.upstreamPressure(m, pDown, out);
     },
   };
 }

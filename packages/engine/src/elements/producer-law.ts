@@ -25,6 +25,8 @@ import type { PortFlow, TwoPortLaw } from './two-port-law.js';
 export const RELIEF_BAND_SHARE = 0.05;
 
 const PRESSURE_FLOOR_PA = 1; // Pa: guards a solver overshoot (see pipe-law.ts)
+// Newton steps tried from the last flow before the bracketed solve (our choice).
+const WARM_NEWTON_STEPS = 8;
 
 export type ProducerProblem =
   | 'curve-too-short'
@@ -128,6 +130,7 @@ export function producerLaw(unit: ProducerUnit, temperatureK: number): TwoPortLa
   const actual = model.flowBasis === 'actual';
   const exhaust = unit.exhaust;
 
+  let lastFlow = Number.NaN;
   const solve = (pa: number, pb: number): Solved => {
     const rhoBasis = actual ? pa / rt : STANDARD_DENSITY; // Q = m / rhoBasis
     const rhoExhaust = pb / rt;
@@ -137,12 +140,31 @@ export function producerLaw(unit: ProducerUnit, temperatureK: number): TwoPortLa
       const e = exhaust ? ratedLossDrop(exhaust, m, rhoExhaust) : { dropPa: 0, dDropDm: 0 };
       return { value: v.value - e.dropPa - dv, slope: v.slope / rhoBasis - e.dDropDm };
     };
-    let lo = curve.qMin * rhoBasis;
-    let hi = curve.qMax * rhoBasis;
-    const step = Math.max(hi - lo, 1e-9);
-    for (let k = 0; k < 200 && g(lo).value < 0; k++) lo -= step * 2 ** k;
-    for (let k = 0; k < 200 && g(hi).value > 0; k++) hi += step * 2 ** k;
-    const m = solveBracketed(g, lo, hi, 0.5 * (lo + hi), { relTol: 1e-14, absTol: 1e-15 });
+    // Warm start: Newton from the last flow while it behaves (g falls
+    // strictly, so its root is unique); else the bracketed solve.
+    let m = Number.NaN;
+    if (Number.isFinite(lastFlow)) {
+      let x = lastFlow;
+      for (let i = 0; i < WARM_NEWTON_STEPS; i++) {
+        const r = g(x);
+        if (!(r.slope < 0) || !Number.isFinite(r.value)) break;
+        const next = x - r.value / r.slope;
+        if (Math.abs(next - x) <= 1e-14 * Math.abs(next) + 1e-15) {
+          m = next;
+          break;
+        }
+        x = next;
+      }
+    }
+    if (!Number.isFinite(m)) {
+      let lo = curve.qMin * rhoBasis;
+      let hi = curve.qMax * rhoBasis;
+      const step = Math.max(hi - lo, 1e-9);
+      for (let k = 0; k < 200 && g(lo).value < 0; k++) lo -= step * 2 ** k;
+      for (let k = 0; k < 200 && g(hi).value > 0; k++) hi += step * 2 ** k;
+      m = solveBracketed(g, lo, hi, 0.5 * (lo + hi), { relTol: 1e-14, absTol: 1e-15 });
+    }
+    lastFlow = m;
     const q = m / rhoBasis;
     const v = curve.at(q);
     const e = exhaust ? ratedLossDrop(exhaust, m, rhoExhaust) : { dropPa: 0, dDropDm: 0 };

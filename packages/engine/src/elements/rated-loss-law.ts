@@ -10,7 +10,7 @@ import { R_AIR, STANDARD_DENSITY } from '../air/standard-air.js';
 import { massFlowFromStandard } from '../air/flow-basis.js';
 import type { RatedLoss } from '../network/model.js';
 import { regularisedSignedSqrt } from './low-flow-blend.js';
-import type { PortFlow, TwoPortLaw } from './two-port-law.js';
+import type { PortFlow, TwoPortLaw, UpstreamPressure } from './two-port-law.js';
 
 /**
  * Below this share of the rated loss (1e-4, i.e. about 1 % of the rated flow)
@@ -20,6 +20,8 @@ import type { PortFlow, TwoPortLaw } from './two-port-law.js';
 export const RATED_LOSS_BLEND_SHARE = 1e-4;
 
 const PRESSURE_FLOOR_PA = 1; // Pa: guards a solver overshoot (see pipe-law.ts)
+// Newton steps of the inverse inside the low-flow blend (our choice; the blend is a quadratic, 3-4 suffice).
+const BLEND_INVERSE_STEPS = 30;
 
 export type RatedLossProblem = 'rated-loss-not-positive' | 'rated-flow-not-positive';
 
@@ -57,18 +59,55 @@ export function ratedLossLaw(rated: RatedLoss, temperatureK: number): TwoPortLaw
   }
   const mRef = massFlowFromStandard(rated.flowStdM3PerS);
   const dpRef = rated.lossPa;
+  const into = (pa: number, pb: number, out: PortFlow): void => {
+    const a = guard(pa);
+    const b = guard(pb);
+    const rho = (a + b) / (2 * R_AIR * t);
+    const dRho = 1 / (2 * R_AIR * t); // d rho / d pa = d rho / d pb
+    const root = Math.sqrt(rho / STANDARD_DENSITY);
+    const s = regularisedSignedSqrt((a - b) / dpRef, RATED_LOSS_BLEND_SHARE);
+    const m = mRef * root * s.value;
+    const fromDensity = (mRef * s.value * dRho) / (2 * Math.sqrt(rho * STANDARD_DENSITY));
+    const fromDrop = (mRef * root * s.slope) / dpRef;
+    out.massFlowKgPerS = m;
+    out.dFlowDPa = fromDensity + fromDrop;
+    out.dFlowDPb = fromDensity - fromDrop;
+    out.limited = undefined;
+  };
+  // Above the blend, m^2 = m_ref^2 (pa^2 - pb^2) / (2 R T rho_ref dp_ref): pa = sqrt(pb^2 + C m^2).
+  const inverseC = (2 * R_AIR * t * STANDARD_DENSITY * dpRef) / (mRef * mRef);
+  const probe: PortFlow = { massFlowKgPerS: 0, dFlowDPa: 0, dFlowDPb: 0 };
   return {
     flow(pa: number, pb: number): PortFlow {
-      const a = guard(pa);
-      const b = guard(pb);
-      const rho = (a + b) / (2 * R_AIR * t);
-      const dRho = 1 / (2 * R_AIR * t); // d rho / d pa = d rho / d pb
-      const root = Math.sqrt(rho / STANDARD_DENSITY);
-      const s = regularisedSignedSqrt((a - b) / dpRef, RATED_LOSS_BLEND_SHARE);
-      const m = mRef * root * s.value;
-      const fromDensity = (mRef * s.value * dRho) / (2 * Math.sqrt(rho * STANDARD_DENSITY));
-      const fromDrop = (mRef * root * s.slope) / dpRef;
-      return { massFlowKgPerS: m, dFlowDPa: fromDensity + fromDrop, dFlowDPb: fromDensity - fromDrop };
+      const out: PortFlow = { massFlowKgPerS: 0, dFlowDPa: 0, dFlowDPb: 0 };
+      into(pa, pb, out);
+      delete out.limited;
+      return out;
+    },
+    flowInto: into,
+    upstreamPressureInto(m: number, pDown: number, out: UpstreamPressure): boolean {
+      if (!(m >= 0) || !Number.isFinite(m) || !(pDown > PRESSURE_FLOOR_PA) || !Number.isFinite(pDown)) return false;
+      let pa = Math.sqrt(pDown * pDown + inverseC * m * m);
+      if ((pa - pDown) / dpRef >= RATED_LOSS_BLEND_SHARE) {
+        out.pressurePa = pa;
+        out.dPressureDFlow = (inverseC * m) / pa;
+        out.dPressureDDown = pDown / pa;
+        return true;
+      }
+      // Inside the low-flow blend: Newton on the law itself (rising in pa, from the square-law value).
+      for (let i = 0; i < BLEND_INVERSE_STEPS; i++) {
+        into(pa, pDown, probe);
+        const step = (m - probe.massFlowKgPerS) / probe.dFlowDPa;
+        if (!Number.isFinite(step)) return false;
+        pa = Math.max(pDown, pa + step);
+        if (Math.abs(step) <= 1e-15 * pa) break;
+      }
+      into(pa, pDown, probe);
+      if (!(probe.dFlowDPa > 0)) return false;
+      out.pressurePa = pa;
+      out.dPressureDFlow = 1 / probe.dFlowDPa;
+      out.dPressureDDown = -probe.dFlowDPb / probe.dFlowDPa;
+      return true;
     },
   };
 }

@@ -14,7 +14,7 @@ import { airDensity } from '../air/density.js';
 import { massFlowFromStandard } from '../air/flow-basis.js';
 import { KAPPA_AIR, R_AIR } from '../air/standard-air.js';
 import type { ToolLaw } from '../network/model.js';
-import { blendBelow, type ValueSlope } from './low-flow-blend.js';
+import type { ValueSlope } from './low-flow-blend.js';
 import { type MonotoneCurve, pchip } from './pchip.js';
 import type { PortFlow, TwoPortLaw } from './two-port-law.js';
 
@@ -46,23 +46,53 @@ function phiExact(u: number): ValueSlope {
 const U_CRIT = 1 - CRITICAL_PRESSURE_RATIO;
 const PHI_AT_BLEND = phiExact(NOZZLE_BLEND_DEFICIT);
 const PHI_CHOKED = phiExact(U_CRIT).value;
-
-/** phi(u), blended near zero, held beyond the critical ratio. */
-function phi(u: number): ValueSlope & { choked: boolean } {
-  if (u >= U_CRIT) return { value: PHI_CHOKED, slope: 0, choked: true };
-  if (u < NOZZLE_BLEND_DEFICIT) return { ...blendBelow(u, NOZZLE_BLEND_DEFICIT, PHI_AT_BLEND), choked: false };
-  return { ...phiExact(u), choked: false };
-}
+// The blend a u + b u^2 below NOZZLE_BLEND_DEFICIT (low-flow-blend.ts), its coefficients once.
+const BLEND_A = (2 * PHI_AT_BLEND.value - PHI_AT_BLEND.slope * NOZZLE_BLEND_DEFICIT) / NOZZLE_BLEND_DEFICIT;
+const BLEND_B = (PHI_AT_BLEND.slope * NOZZLE_BLEND_DEFICIT - PHI_AT_BLEND.value) / (NOZZLE_BLEND_DEFICIT * NOZZLE_BLEND_DEFICIT);
+const INV_KAPPA = 1 / KAPPA_AIR;
 
 /**
  * Nozzle mass flow from `up` to `down` (up >= down > 0) with
  * m = K up phi(u), u = 1 - down/up, K = Cd A sqrt(2 kappa/((kappa-1) R T)):
- * dm/dup = K (phi + r phi'), dm/ddown = -K phi'.
+ * dm/dup = K (phi + r phi'), dm/ddown = -K phi'. phi is blended near zero
+ * and held beyond the critical ratio; psi is taken through one power,
+ * t = r^(1/kappa): r^(2/kappa) = t^2, r^((kappa+1)/kappa) = r t. Written
+ * into `out`; returns whether the nozzle is choked.
  */
-function nozzle(kFactor: number, up: number, down: number): { m: number; dUp: number; dDown: number; choked: boolean } {
+function nozzleInto(kFactor: number, up: number, down: number, out: PortFlow, flip: boolean): void {
   const r = down / up;
-  const f = phi(1 - r);
-  return { m: kFactor * up * f.value, dUp: kFactor * (f.value + r * f.slope), dDown: 0 - kFactor * f.slope, choked: f.choked };
+  const u = 1 - r;
+  let value: number;
+  let slope: number;
+  let choked = false;
+  if (u >= U_CRIT) {
+    value = PHI_CHOKED;
+    slope = 0;
+    choked = true;
+  } else if (u < NOZZLE_BLEND_DEFICIT) {
+    value = BLEND_A * u + BLEND_B * u * u;
+    slope = BLEND_A + 2 * BLEND_B * u;
+  } else {
+    const t = Math.pow(r, INV_KAPPA);
+    const psiValue = t * t - r * t;
+    // d psi/dr = (2/k) r^(2/k - 1) - ((k+1)/k) r^(1/k) = (2/k) t^2 / r - ((k+1)/k) t
+    const psiSlope = (2 * INV_KAPPA * t * t) / r - (1 + INV_KAPPA) * t;
+    value = Math.sqrt(Math.max(psiValue, 0));
+    slope = value > 0 ? -psiSlope / (2 * value) : 0;
+  }
+  const m = kFactor * up * value;
+  const dUp = kFactor * (value + r * slope);
+  const dDown = 0 - kFactor * slope;
+  if (!flip) {
+    out.massFlowKgPerS = m;
+    out.dFlowDPa = dUp;
+    out.dFlowDPb = dDown;
+  } else {
+    out.massFlowKgPerS = 0 - m;
+    out.dFlowDPa = 0 - dDown;
+    out.dFlowDPb = 0 - dUp;
+  }
+  out.limited = choked ? 'choked' : undefined;
 }
 
 export type ToolLawProblem = 'orifice-diameter-not-positive' | 'discharge-coefficient-invalid' | 'table-has-no-points' | 'table-flow-falls';
@@ -116,17 +146,20 @@ export function toolLaw(law: ToolLaw, ambientPa: number, temperatureK: number): 
     const cd = Number.isFinite(law.dischargeCoefficient) && law.dischargeCoefficient > 0 ? law.dischargeCoefficient : DEFAULT_DISCHARGE_COEFFICIENT;
     const area = (Math.PI * law.diameterM * law.diameterM) / 4;
     const kFactor = cd * area * Math.sqrt((2 * KAPPA_AIR) / ((KAPPA_AIR - 1) * R_AIR * t));
+    const into = (pa: number, pb: number, out: PortFlow): void => {
+      const a = guard(pa);
+      const b = guard(pb);
+      if (a >= b) nozzleInto(kFactor, a, b, out, false);
+      else nozzleInto(kFactor, b, a, out, true);
+    };
     return {
       flow(pa: number, pb: number): PortFlow {
-        const a = guard(pa);
-        const b = guard(pb);
-        if (a >= b) {
-          const n = nozzle(kFactor, a, b);
-          return withLimit({ massFlowKgPerS: n.m, dFlowDPa: n.dUp, dFlowDPb: n.dDown }, n.choked ? 'choked' : undefined);
-        }
-        const n = nozzle(kFactor, b, a);
-        return withLimit({ massFlowKgPerS: 0 - n.m, dFlowDPa: 0 - n.dDown, dFlowDPb: 0 - n.dUp }, n.choked ? 'choked' : undefined);
+        const out: PortFlow = { massFlowKgPerS: 0, dFlowDPa: 0, dFlowDPb: 0 };
+        into(pa, pb, out);
+        if (out.limited === undefined) delete out.limited;
+        return out;
       },
+      flowInto: into,
     };
   }
   const pts = usablePoints(law.points);

@@ -24,4 +24,28 @@ export interface PortFlow {
 export interface TwoPortLaw {
   /** Flow and derivatives at absolute port pressures pa, pb (Pa, both > 0). */
   flow(pa: number, pb: number): PortFlow;
+  /**
+   * The same as `flow`, written into `out` (every field, `limited` set to
+   * undefined when there is no limit) without allocating: the solver's hot
+   * path uses it when a law has it.
+   */
+  flowInto?(pa: number, pb: number, out: PortFlow): void;
+  /**
+   * For laws that are the same both ways round (pipes, hoses): the
+   * pressure at the end air enters for a mass flow m >= 0 toward an end at
+   * pDown, with its derivatives, written into `out`; false when no physical
+   * pressure passes that flow (choking). Optional: a solver that marches
+   * pressures from a known end inverts other laws numerically.
+   */
+  upstreamPressureInto?(m: number, pDown: number, out: UpstreamPressure): boolean;
+}
+
+/** The inverse of a law at one flow: the upstream pressure and its derivatives. */
+export interface UpstreamPressure {
+  /** Absolute pressure at the end air enters, Pa. */
+  pressurePa: number;
+  /** d(pressure)/d(mass flow), Pa s/kg. */
+  dPressureDFlow: number;
+  /** d(pressure)/d(downstream pressure). */
+  dPressureDDown: number;
 }

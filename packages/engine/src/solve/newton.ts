@@ -11,7 +11,7 @@
  * Unconstrained Optimization and Nonlinear Equations, 1983, sec. 6.3).
  * Converged when every node's imbalance is below `tolerance` x total flow.
  */
-import type { TwoPortLaw } from '../elements/two-port-law.js';
+import type { PortFlow, TwoPortLaw } from '../elements/two-port-law.js';
 import type { LawLimit } from './solve-types.js';
 import { analyseLU, factorLU, offIndex, solveLU, type SymbolicLU } from './sparse-lu.js';
 import { forestOrder, solveForest, type ForestOrder } from './tree-elimination.js';
@@ -79,6 +79,29 @@ interface LinearBackend {
 export function linearBackend(sys: LocalSystem): LinearBackend {
   const { n, la, lb } = sys;
   const m = la.length;
+  const sAA = new Int32Array(m).fill(-1);
+  const sAB = new Int32Array(m).fill(-1);
+  const sBA = new Int32Array(m).fill(-1);
+  const sBB = new Int32Array(m).fill(-1);
+  for (let e = 0; e < m; e++) {
+    if (la[e]! >= 0) sAA[e] = la[e]!;
+    if (lb[e]! >= 0) sBB[e] = lb[e]!;
+  }
+  // A forest of free-free elements (the usual tree case) needs no merging:
+  // parallel elements would close a loop, so the forest test rules them out.
+  const directP: number[] = [];
+  const directQ: number[] = [];
+  const directOf = new Int32Array(m).fill(-1);
+  for (let e = 0; e < m; e++) {
+    const a = la[e]!;
+    const b = lb[e]!;
+    if (a < 0 || b < 0 || a === b) continue;
+    directOf[e] = directP.length;
+    directP.push(a);
+    directQ.push(b);
+  }
+  const direct = forestOrder(n, directP, directQ);
+  if (direct) return forestBackend(sys, direct, directOf, sAA, sAB, sBA, sBB);
   // Merge parallel elements into one edge.
   const edgeOf = new Int32Array(m).fill(-1);
   const edgeP: number[] = [];
@@ -100,37 +123,8 @@ export function linearBackend(sys: LocalSystem): LinearBackend {
     }
     edgeOf[e] = id;
   }
-  const sAA = new Int32Array(m).fill(-1);
-  const sAB = new Int32Array(m).fill(-1);
-  const sBA = new Int32Array(m).fill(-1);
-  const sBB = new Int32Array(m).fill(-1);
-  for (let e = 0; e < m; e++) {
-    if (la[e]! >= 0) sAA[e] = la[e]!;
-    if (lb[e]! >= 0) sBB[e] = lb[e]!;
-  }
   const forest: ForestOrder | null = forestOrder(n, edgeP, edgeQ);
-  if (forest) {
-    for (let e = 0; e < m; e++) {
-      if (edgeOf[e]! < 0) continue;
-      const a = la[e]!;
-      const b = lb[e]!;
-      if (forest.parent[a] === b) {
-        sAB[e] = n + a; // J[child][parent]
-        sBA[e] = 2 * n + a; // J[parent][child]
-      } else {
-        sAB[e] = 2 * n + b;
-        sBA[e] = n + b;
-      }
-    }
-    return {
-      valueCount: 3 * n,
-      sAA,
-      sAB,
-      sBA,
-      sBB,
-      solve: (values, rhs) => solveForest(forest, values, rhs),
-    };
-  }
+  if (forest) return forestBackend(sys, forest, edgeOf, sAA, sAB, sBA, sBB);
   const sym: SymbolicLU = analyseLU(n, edgeP, edgeQ);
   for (let e = 0; e < m; e++) {
     const id = edgeOf[e]!;
@@ -149,6 +143,39 @@ export function linearBackend(sys: LocalSystem): LinearBackend {
       solveLU(sym, values, rhs);
       return true;
     },
+  };
+}
+
+/** The back-end of a forest pattern: slots of each element's off-diagonal entries by child and parent. */
+function forestBackend(
+  sys: LocalSystem,
+  forest: ForestOrder,
+  edgeOf: Int32Array,
+  sAA: Int32Array,
+  sAB: Int32Array,
+  sBA: Int32Array,
+  sBB: Int32Array,
+): LinearBackend {
+  const { n, la, lb } = sys;
+  for (let e = 0; e < la.length; e++) {
+    if (edgeOf[e]! < 0) continue;
+    const a = la[e]!;
+    const b = lb[e]!;
+    if (forest.parent[a] === b) {
+      sAB[e] = n + a; // J[child][parent]
+      sBA[e] = 2 * n + a; // J[parent][child]
+    } else {
+      sAB[e] = 2 * n + b;
+      sBA[e] = n + b;
+    }
+  }
+  return {
+    valueCount: 3 * n,
+    sAA,
+    sAB,
+    sBA,
+    sBB,
+    solve: (values, rhs) => solveForest(forest, values, rhs),
   };
 }
 
@@ -185,6 +212,7 @@ export function newtonSolve(sys: LocalSystem, p: Float64Array, backend: LinearBa
   const step = new Float64Array(n);
   const { sAA, sAB, sBA, sBB } = backend;
   let evaluations = 0;
+  const scratch: PortFlow = { massFlowKgPerS: 0, dFlowDPa: 0, dFlowDPb: 0, limited: undefined };
 
   let limits: (LawLimit | undefined)[] = new Array(m);
   let trialLimits: (LawLimit | undefined)[] = new Array(m);
@@ -199,7 +227,14 @@ export function newtonSolve(sys: LocalSystem, p: Float64Array, backend: LinearBa
       const b = lb[e]!;
       const pa = a >= 0 ? pp[a]! : fa[e]!;
       const pb = b >= 0 ? pp[b]! : fb[e]!;
-      const r = laws[e]!.flow(pa, pb);
+      const law = laws[e]!;
+      let r: PortFlow;
+      if (law.flowInto) {
+        law.flowInto(pa, pb, scratch);
+        r = scratch;
+      } else {
+        r = law.flow(pa, pb);
+      }
       lim[e] = r.limited;
       const flow = r.massFlowKgPerS;
       if (!Number.isFinite(flow)) {

@@ -11,7 +11,7 @@
  */
 import { linearBackend, newtonSolve, type LocalSystem } from './newton.js';
 import { fillInitialPressures } from './initial-guess.js';
-import type { LawLimit, SolveEffort, SolveFailure, NetworkSolveOptions, SolveResult, SolvedState, SolverNetwork } from './solve-types.js';
+import type { LawLimit, SolveEffort, SolveFailure, SolveFailureCause, NetworkSolveOptions, SolveResult, SolvedState, SolverNetwork } from './solve-types.js';
 import type { TwoPortLaw } from '../elements/two-port-law.js';
 
 /** Default relative mass-imbalance tolerance (ENGINEERING.md: 1e-9 of the total flow). */
@@ -44,19 +44,62 @@ export function solveNetwork(
   }
 }
 
+/**
+ * Scratch arrays sized to one network, reused by every solve of it (a
+ * stamp marks the entries of the current solve), so that a small case of a
+ * large network costs time in proportion to the case, not the network.
+ */
+interface Workspace {
+  stamp: number;
+  elemStamp: Int32Array;
+  nodeStamp: Int32Array;
+  /** Local id of a free node in the current solve; -1 for a fixed node. */
+  localOf: Int32Array;
+  /** Fixed pressure of a node in the current solve (NaN when free). */
+  fixedAt: Float64Array;
+}
+
+const workspaces = new WeakMap<SolverNetwork, Workspace>();
+
+function workspaceOf(net: SolverNetwork): Workspace {
+  const elementCount = net.elementA.length;
+  let ws = workspaces.get(net);
+  if (!ws || ws.nodeStamp.length !== net.nodeCount || ws.elemStamp.length !== elementCount) {
+    ws = {
+      stamp: 0,
+      elemStamp: new Int32Array(elementCount),
+      nodeStamp: new Int32Array(net.nodeCount),
+      localOf: new Int32Array(net.nodeCount),
+      fixedAt: new Float64Array(net.nodeCount),
+    };
+    workspaces.set(net, ws);
+  }
+  ws.stamp++;
+  if (ws.stamp >= 0x7fffffff) {
+    ws.elemStamp.fill(0);
+    ws.nodeStamp.fill(0);
+    ws.stamp = 1;
+  }
+  return ws;
+}
+
 function solveInner(net: SolverNetwork, active: ArrayLike<number>, options: NetworkSolveOptions, effort?: SolveEffort): SolveResult {
   if (effort) effort.solves++;
   const tolerance = options.tolerance ?? DEFAULT_TOLERANCE;
   const maxIterations = options.maxIterations ?? DEFAULT_MAX_ITERATIONS;
   const overrides = options.fixedOverridesPa;
+  const ws = workspaceOf(net);
+  const stamp = ws.stamp;
+  const { elemStamp, nodeStamp, localOf, fixedAt } = ws;
+  const elementA = net.elementA;
+  const elementB = net.elementB;
 
   // --- unique active elements, each with a law
-  const seen = new Set<number>();
-  const elems: number[] = [];
+  const elemList: number[] = [];
   for (let i = 0; i < active.length; i++) {
     const e = active[i]!;
-    if (seen.has(e)) continue;
-    seen.add(e);
+    if (elemStamp[e] === stamp) continue;
+    if (e >= 0 && e < elemStamp.length) elemStamp[e] = stamp;
     const law = net.laws[e];
     if (!law) {
       return fail({
@@ -65,58 +108,72 @@ function solveInner(net: SolverNetwork, active: ArrayLike<number>, options: Netw
         message: net.invalid[e] ?? 'element has no flow law',
       });
     }
-    elems.push(e);
+    elemList.push(e);
   }
+  const elemCount = elemList.length;
+  const elems = Int32Array.from(elemList);
 
   const fixedOf = (node: number): number => {
     const o = overrides?.get(node);
     if (o !== undefined) return o;
     return net.fixedPressurePa[node]!;
   };
-  const isFree = (node: number): boolean => !Number.isFinite(fixedOf(node));
 
-  // --- local numbering of free nodes; degrees for pruning
-  const local = new Map<number, number>();
-  const globalNodes: number[] = [];
-  const degree: number[] = [];
+  // --- local numbering of free nodes (first touch order); degrees for pruning
+  const globalList: number[] = [];
+  const degreeList: number[] = [];
   const touch = (node: number): void => {
-    if (!isFree(node)) return;
-    let id = local.get(node);
-    if (id === undefined) {
-      id = globalNodes.length;
-      local.set(node, id);
-      globalNodes.push(node);
-      degree.push(0);
+    if (nodeStamp[node] !== stamp) {
+      nodeStamp[node] = stamp;
+      const pf = fixedOf(node);
+      fixedAt[node] = pf;
+      if (Number.isFinite(pf)) {
+        localOf[node] = -1;
+        return;
+      }
+      localOf[node] = globalList.length;
+      globalList.push(node);
+      degreeList.push(1);
+      return;
     }
-    degree[id]!++;
+    const id = localOf[node]!;
+    if (id >= 0) degreeList[id]!++;
   };
-  for (const e of elems) {
-    touch(net.elementA[e]!);
-    touch(net.elementB[e]!);
+  for (let k = 0; k < elemCount; k++) {
+    const e = elems[k]!;
+    touch(elementA[e]!);
+    touch(elementB[e]!);
   }
-  const nodeCount = globalNodes.length;
+  const nodeCount = globalList.length;
+  const globalNodes = Int32Array.from(globalList);
+  const degree = Int32Array.from(degreeList);
+  // Local ends of each case element (-1: fixed).
+  const endA = new Int32Array(elemCount);
+  const endB = new Int32Array(elemCount);
+  for (let k = 0; k < elemCount; k++) {
+    const e = elems[k]!;
+    endA[k] = localOf[elementA[e]!]!;
+    endB[k] = localOf[elementB[e]!]!;
+  }
   // Incidence lists (CSR) of free nodes.
   const incStart = new Int32Array(nodeCount + 1);
-  for (const e of elems) {
-    const a = local.get(net.elementA[e]!);
-    const b = local.get(net.elementB[e]!);
-    if (a !== undefined) incStart[a + 1]!++;
-    if (b !== undefined) incStart[b + 1]!++;
+  for (let k = 0; k < elemCount; k++) {
+    if (endA[k]! >= 0) incStart[endA[k]! + 1]!++;
+    if (endB[k]! >= 0) incStart[endB[k]! + 1]!++;
   }
   for (let i = 0; i < nodeCount; i++) incStart[i + 1] = incStart[i + 1]! + incStart[i]!;
   const incPos = incStart.slice(0, nodeCount);
   const incElem = new Int32Array(incStart[nodeCount]!);
-  elems.forEach((e, k) => {
-    const a = local.get(net.elementA[e]!);
-    const b = local.get(net.elementB[e]!);
-    if (a !== undefined) incElem[incPos[a]!++] = k;
-    if (b !== undefined) incElem[incPos[b]!++] = k;
-  });
+  for (let k = 0; k < elemCount; k++) {
+    if (endA[k]! >= 0) incElem[incPos[endA[k]!]!++] = k;
+    if (endB[k]! >= 0) incElem[incPos[endB[k]!]!++] = k;
+  }
 
   // --- prune dead legs: a free node with one element, to another free node
-  const removedElem = new Uint8Array(elems.length);
+  const removedElem = new Uint8Array(elemCount);
   const removedNode = new Uint8Array(nodeCount);
-  const prunedOrder: { node: number; via: number }[] = [];
+  const prunedNode: number[] = [];
+  const prunedVia: number[] = [];
   if (options.prune !== false) {
     const stack: number[] = [];
     for (let v = 0; v < nodeCount; v++) if (degree[v] === 1) stack.push(v);
@@ -127,15 +184,15 @@ function solveInner(net: SolverNetwork, active: ArrayLike<number>, options: Netw
       for (let j = incStart[v]!; j < incStart[v + 1]!; j++) if (!removedElem[incElem[j]!]) k = incElem[j]!;
       if (k < 0) continue;
       const e = elems[k]!;
-      const other = local.get(net.elementA[e]!) === v ? net.elementB[e]! : net.elementA[e]!;
-      const u = local.get(other);
+      const u = endA[k] === v ? endB[k]! : endA[k]!;
       // Only passive dead ends between free nodes go: an element to a fixed
       // pressure (an open tool, a producer) always takes part.
-      if (net.drives[e] || u === undefined) continue;
+      if (net.drives[e] || u < 0) continue;
       removedElem[k] = 1;
       removedNode[v] = 1;
       degree[v] = 0;
-      prunedOrder.push({ node: v, via: k });
+      prunedNode.push(v);
+      prunedVia.push(k);
       if (u !== v) {
         degree[u]!--;
         if (degree[u] === 1) stack.push(u);
@@ -145,13 +202,22 @@ function solveInner(net: SolverNetwork, active: ArrayLike<number>, options: Netw
 
   // --- components of the remaining free nodes; each must be able to move air
   const comp = new Int32Array(nodeCount).fill(-1);
-  const compInfo: { drives: boolean; fixedMin: number; fixedMax: number; firstFixedElem: number; hasElem: boolean }[] = [];
+  const compDrives: boolean[] = [];
+  const compFixedMin: number[] = [];
+  const compFixedMax: number[] = [];
+  const compFirstFixedElem: number[] = [];
+  const compHasElem: boolean[] = [];
+  const queue: number[] = [];
   for (let s = 0; s < nodeCount; s++) {
     if (removedNode[s] || comp[s]! >= 0) continue;
-    const c = compInfo.length;
-    const info = { drives: false, fixedMin: Infinity, fixedMax: -Infinity, firstFixedElem: -1, hasElem: false };
-    compInfo.push(info);
-    const queue = [s];
+    const c = compDrives.length;
+    let drives = false;
+    let fixedMin = Infinity;
+    let fixedMax = -Infinity;
+    let firstFixedElem = -1;
+    let hasElem = false;
+    queue.length = 0;
+    queue.push(s);
     comp[s] = c;
     while (queue.length > 0) {
       const v = queue.pop()!;
@@ -159,15 +225,15 @@ function solveInner(net: SolverNetwork, active: ArrayLike<number>, options: Netw
         const k = incElem[j]!;
         if (removedElem[k]) continue;
         const e = elems[k]!;
-        info.hasElem = true;
-        if (net.drives[e]) info.drives = true;
-        for (const end of [net.elementA[e]!, net.elementB[e]!]) {
-          const u = local.get(end);
-          if (u === undefined) {
-            const pf = fixedOf(end);
-            info.fixedMin = Math.min(info.fixedMin, pf);
-            info.fixedMax = Math.max(info.fixedMax, pf);
-            if (info.firstFixedElem < 0) info.firstFixedElem = e;
+        hasElem = true;
+        if (net.drives[e]) drives = true;
+        for (let side = 0; side < 2; side++) {
+          const u = side === 0 ? endA[k]! : endB[k]!;
+          if (u < 0) {
+            const pf = fixedAt[side === 0 ? elementA[e]! : elementB[e]!]!;
+            if (pf < fixedMin) fixedMin = pf;
+            if (pf > fixedMax) fixedMax = pf;
+            if (firstFixedElem < 0) firstFixedElem = e;
           } else if (comp[u]! < 0) {
             comp[u] = c;
             queue.push(u);
@@ -175,16 +241,20 @@ function solveInner(net: SolverNetwork, active: ArrayLike<number>, options: Netw
         }
       }
     }
+    compDrives.push(drives);
+    compFixedMin.push(fixedMin);
+    compFixedMax.push(fixedMax);
+    compFirstFixedElem.push(firstFixedElem);
+    compHasElem.push(hasElem);
   }
   // Components with no fixed pressure at all carry no air: leave them out.
   // Components whose only fixed ends share one pressure and that hold no
   // producer cannot move air: the open tools in them have no path.
-  const keepComp = compInfo.map((info) => Number.isFinite(info.fixedMin) && info.hasElem);
-  for (let c = 0; c < compInfo.length; c++) {
-    const info = compInfo[c]!;
+  const keepComp = compDrives.map((_, c) => Number.isFinite(compFixedMin[c]!) && compHasElem[c]!);
+  for (let c = 0; c < keepComp.length; c++) {
     if (!keepComp[c]) continue;
-    if (!info.drives && info.fixedMax - info.fixedMin <= 0) {
-      const e = info.firstFixedElem;
+    if (!compDrives[c] && compFixedMax[c]! - compFixedMin[c]! <= 0) {
+      const e = compFirstFixedElem[c]!;
       return fail({
         cause: 'no-path',
         element: net.refs[e],
@@ -195,22 +265,24 @@ function solveInner(net: SolverNetwork, active: ArrayLike<number>, options: Netw
 
   // --- local system
   const freeIndex = new Int32Array(nodeCount).fill(-1);
-  const freeGlobal: number[] = [];
+  const freeGlobalList: number[] = [];
   for (let v = 0; v < nodeCount; v++) {
     if (removedNode[v] || !keepComp[comp[v]!]) continue;
-    freeIndex[v] = freeGlobal.length;
-    freeGlobal.push(globalNodes[v]!);
+    freeIndex[v] = freeGlobalList.length;
+    freeGlobalList.push(globalNodes[v]!);
   }
-  const sysElems: number[] = [];
-  elems.forEach((e, k) => {
-    if (removedElem[k]) return;
-    const a = local.get(net.elementA[e]!);
-    const b = local.get(net.elementB[e]!);
-    const inKept = (x: number | undefined) => x === undefined || freeIndex[x]! >= 0;
-    if (inKept(a) && inKept(b) && (a !== undefined || b !== undefined)) sysElems.push(e);
-  });
-  const m = sysElems.length;
+  const freeGlobal = Int32Array.from(freeGlobalList);
+  const sysList: number[] = [];
+  for (let k = 0; k < elemCount; k++) {
+    if (removedElem[k]) continue;
+    const a = endA[k]!;
+    const b = endB[k]!;
+    const inKept = (x: number) => x < 0 || freeIndex[x]! >= 0;
+    if (inKept(a) && inKept(b) && (a >= 0 || b >= 0)) sysList.push(k);
+  }
+  const m = sysList.length;
   const n = freeGlobal.length;
+  const sysElems = new Int32Array(m);
   const sys: LocalSystem = {
     n,
     la: new Int32Array(m),
@@ -220,19 +292,20 @@ function solveInner(net: SolverNetwork, active: ArrayLike<number>, options: Netw
     laws: new Array<TwoPortLaw>(m),
   };
   let maxFixed = 0;
-  sysElems.forEach((e, k) => {
-    const A = net.elementA[e]!;
-    const B = net.elementB[e]!;
-    const a = local.get(A);
-    const b = local.get(B);
-    sys.la[k] = a === undefined ? -1 : freeIndex[a]!;
-    sys.lb[k] = b === undefined ? -1 : freeIndex[b]!;
-    sys.fa[k] = a === undefined ? fixedOf(A) : NaN;
-    sys.fb[k] = b === undefined ? fixedOf(B) : NaN;
-    if (a === undefined) maxFixed = Math.max(maxFixed, fixedOf(A));
-    if (b === undefined) maxFixed = Math.max(maxFixed, fixedOf(B));
-    sys.laws[k] = net.laws[e]!;
-  });
+  for (let j = 0; j < m; j++) {
+    const k = sysList[j]!;
+    const e = elems[k]!;
+    sysElems[j] = e;
+    const a = endA[k]!;
+    const b = endB[k]!;
+    sys.la[j] = a < 0 ? -1 : freeIndex[a]!;
+    sys.lb[j] = b < 0 ? -1 : freeIndex[b]!;
+    sys.fa[j] = a < 0 ? fixedAt[elementA[e]!]! : NaN;
+    sys.fb[j] = b < 0 ? fixedAt[elementB[e]!]! : NaN;
+    if (a < 0) maxFixed = Math.max(maxFixed, sys.fa[j]!);
+    if (b < 0) maxFixed = Math.max(maxFixed, sys.fb[j]!);
+    sys.laws[j] = net.laws[e]!;
+  }
 
   // --- starting pressures: the caller's guess where it has one, filled in elsewhere
   const p = new Float64Array(n);
@@ -269,27 +342,33 @@ function solveInner(net: SolverNetwork, active: ArrayLike<number>, options: Netw
   }
 
   // --- the state, including pruned nodes (at the pressure they hang from) and elements (no flow)
-  const pressureByGlobal = new Map<number, number>();
-  freeGlobal.forEach((g, i) => pressureByGlobal.set(g, p[i]!));
-  for (let r = prunedOrder.length - 1; r >= 0; r--) {
-    const { node, via } = prunedOrder[r]!;
-    const e = elems[via]!;
-    const g = globalNodes[node]!;
-    const other = net.elementA[e] === g ? net.elementB[e]! : net.elementA[e]!;
-    const po = local.has(other) ? pressureByGlobal.get(other) : fixedOf(other);
-    pressureByGlobal.set(g, po !== undefined && Number.isFinite(po) ? po : maxFixed);
+  const prunedCount = prunedNode.length;
+  const stateNodes = new Int32Array(n + prunedCount);
+  const statePressures = new Float64Array(n + prunedCount);
+  stateNodes.set(freeGlobal);
+  statePressures.set(p.subarray(0, n));
+  // Pressure of a free local node: its solved value, or (pruned) the value it was given.
+  const localPressure = new Float64Array(nodeCount).fill(NaN);
+  for (let v = 0; v < nodeCount; v++) if (freeIndex[v]! >= 0) localPressure[v] = p[freeIndex[v]!]!;
+  for (let r = prunedCount - 1, at = n; r >= 0; r--, at++) {
+    const node = prunedNode[r]!;
+    const k = prunedVia[r]!;
+    const other = endA[k] === node ? endB[k]! : endA[k]!;
+    const e = elems[k]!;
+    const po = other >= 0 ? localPressure[other]! : fixedAt[endA[k] === node ? elementB[e]! : elementA[e]!]!;
+    const value = Number.isFinite(po) ? po : maxFixed;
+    localPressure[node] = value;
+    stateNodes[at] = globalNodes[node]!;
+    statePressures[at] = value;
   }
-  const stateNodes = Int32Array.from(pressureByGlobal.keys());
-  const statePressures = Float64Array.from(pressureByGlobal.values());
-  const flowByElem = new Map<number, number>();
-  for (const e of elems) flowByElem.set(e, 0);
-  sysElems.forEach((e, k) => flowByElem.set(e, outcome.flows[k]!));
+  const stateFlows = new Float64Array(elemCount);
+  for (let j = 0; j < m; j++) stateFlows[sysList[j]!] = outcome.flows[j]!;
   const limited: SolvedState['limited'] = [];
   const state = (): SolvedState => ({
     nodes: stateNodes,
     pressurePa: statePressures,
-    elements: Int32Array.from(flowByElem.keys()),
-    flowKgPerS: Float64Array.from(flowByElem.values()),
+    elements: elems,
+    flowKgPerS: stateFlows,
     limited,
     iterations: outcome.iterations,
     imbalanceFraction: outcome.imbalanceFraction,
@@ -304,9 +383,7 @@ function solveInner(net: SolverNetwork, active: ArrayLike<number>, options: Netw
     };
   }
   // Limits the laws report at the final point, and what each means here.
-  const classify =
-    net.classifyLimit ??
-    ((e: number, limit: LawLimit) => (limit === 'choked' ? 'choked' : limit === 'curve-end' && net.drives[e] ? 'infeasible-demand' : null));
+  const classify = net.classifyLimit ?? ((e: number, limit: LawLimit) => defaultLimitCause(net, e, limit));
   for (let k = 0; k < m; k++) {
     const lim = outcome.limits[k];
     if (!lim) continue;
@@ -370,6 +447,15 @@ function solveInner(net: SolverNetwork, active: ArrayLike<number>, options: Netw
           };
   return { ok: false, iterations: outcome.iterations, state: state(), failure };
 }
+
+/** What a limit means when the network does not say (SolverNetwork.classifyLimit). */
+export function defaultLimitCause(net: SolverNetwork, element: number, limit: LawLimit): SolveFailureCause | null {
+  if (limit === 'choked') return 'choked';
+  return limit === 'curve-end' && net.drives[element] ? 'infeasible-demand' : null;
+}
+
+/** A node pressure below this share of the highest fixed pressure means zero absolute pressure (see ZERO_PRESSURE_FRACTION). */
+export const ZERO_PRESSURE_SHARE = ZERO_PRESSURE_FRACTION;
 
 function fail(failure: SolveFailure): SolveResult {
   return { ok: false, iterations: 0, failure };

@@ -34,6 +34,20 @@ describe('ratedLossLaw: dp = dp_ref (m/m_ref)^2 (rho_ref/rho) (ENGINEERING.md; s
       expect(Math.abs(r.dFlowDPb - dB) / s).toBeLessThan(1e-5);
     }
   });
+  it('upstreamPressureInto inverts the law: the rated point back, and inside the low-flow blend', () => {
+    const up = { pressurePa: 0, dPressureDFlow: 0, dPressureDDown: 0 };
+    // The rated point at standard density (ENGINEERING.md: the rating is read as standard air).
+    expect(law.upstreamPressureInto!(0.1 * RHO_STD, 101325 - 750, up)).toBe(true);
+    expect(up.pressurePa).toBeCloseTo(101325 + 750, 8);
+    for (const [pa, pb] of [[60000, 59000], [60000, 59999.95], [90000, 40000]] as const) {
+      const m = law.flow(pa, pb).massFlowKgPerS;
+      expect(law.upstreamPressureInto!(m, pb, up)).toBe(true);
+      expect(up.pressurePa).toBeCloseTo(pa, 6);
+      const f = law.flow(pa, pb);
+      expect(up.dPressureDFlow).toBeCloseTo(1 / f.dFlowDPa, 3);
+      expect(up.dPressureDDown).toBeCloseTo(-f.dFlowDPb / f.dFlowDPa, 9);
+    }
+  });
   it('ratedLossDrop is the inverse', () => {
     const m = law.flow(70000, 68000).massFlowKgPerS;
     expect(ratedLossDrop(rated, m, 69000 / (287.05 * 293.15)).dropPa).toBeCloseTo(2000, 8);
