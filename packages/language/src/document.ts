@@ -89,7 +89,9 @@ export async function loadDocuments(paths: string[], options: LoadOptions = {}):
   const builder = shared.workspace.DocumentBuilder;
 
   // Start each call from a clean workspace so results never depend on earlier calls.
-  for (const uri of [...documents.all.map((d) => d.uri)]) documents.deleteDocument(uri);
+  // (Through the builder, so the index forgets their symbols too, not only the document store.)
+  const previous = documents.all.map((d) => d.uri).toArray();
+  if (previous.length > 0) await builder.update([], previous);
 
   const files: LoadedFile[] = [];
   const loaded = new Map<string, LangiumDocument>();
