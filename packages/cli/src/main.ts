@@ -75,6 +75,35 @@ export async function main(argv: readonly string[], io: CommandIo = processIo())
       );
     });
 
+  program
+    .command('fmt')
+    .summary('format .vacnet files the way the editor does')
+    .description(
+      'Format .vacnet files with the editor\'s formatter: one element per line, consistent spacing and indentation, ' +
+        'every comment kept. Without a flag the formatted text goes to stdout. A file with syntax errors is never changed.',
+    )
+    .argument('<paths...>', '.vacnet files, folders or globs')
+    .addOption(new Option('--check', 'print a unified diff for each file that would change, and exit 1 if any would').conflicts('write'))
+    .addOption(new Option('--write', 'replace each file that changes (atomically: a temporary file, then a rename)').conflicts('check'))
+    .addHelpText(
+      'after',
+      [
+        '',
+        'Exit codes:',
+        '  0  formatted (--check: every file is already formatted)',
+        '  1  --check: some file would change; or a file has syntax errors (not formatted)',
+        '  2  usage error, or a file could not be read or written',
+        '',
+        'Examples:',
+        '  vacnet fmt --check .',
+        '  vacnet fmt --write plant.vacnet',
+      ].join('\n'),
+    )
+    .action(async (paths: string[], options: { check?: boolean; write?: boolean }) => {
+      const { runFmt } = await import('./commands/fmt.js');
+      exitCode = await runFmt(paths, options.check ? 'check' : options.write ? 'write' : 'print', io);
+    });
+
   try {
     await program.parseAsync([...argv]);
   } catch (error) {

@@ -11,3 +11,4 @@ export * as Ast from './generated/ast.js';
 export { formatText } from './lsp/format-text.js';
 export { PROJECT_SETTINGS_FILE, SettingsCodes, parseProjectSettings, applyProjectSettings, emptyProjectSettings, statesDisplayUnits, type ProjectSettings, type ProjectHints, type ProjectSettingsReading } from './settings/project-settings.js';
 export { findProjectSettingsFile, diskAccess, type SettingsFileAccess, type FoundSettingsFile } from './settings/find-project-settings.js';
+export { syntaxErrorsOf } from './syntax-errors.js';
