@@ -104,6 +104,68 @@ export async function main(argv: readonly string[], io: CommandIo = processIo())
       exitCode = await runFmt(paths, options.check ? 'check' : options.write ? 'write' : 'print', io);
     });
 
+  program
+    .command('compare')
+    .summary('compare two versions of a system: what changed and how the results moved')
+    .description(
+      'Compare two versions of a .vacnet system semantically: elements added, removed and changed (formatting and ' +
+        'order do not count), and how the results moved: the worst-case vacuum at every inlet, pipes that crossed ' +
+        'the carrying velocity, the producer\'s operating point and margin, findings new and resolved. Each side is ' +
+        'a path or <git-rev>:<path> (read with git show, with the catalogs and settings of that revision).',
+    )
+    .argument('<old>', 'the version before: a path, or <git-rev>:<path> such as HEAD~1:plant.vacnet')
+    .argument('<new>', 'the version after, the same way')
+    .addOption(new Option('-f, --format <format>', 'output format').choices(['text', 'markdown', 'json']).default('text'))
+    .option('--fail-on-regression', 'exit 1 when an inlet falls short of the vacuum its tool needs and got worse, or a new error appears')
+    .option('--no-settings', 'use no project settings file on either side')
+    .addHelpText(
+      'after',
+      [
+        '',
+        'A <git-rev>:<path> path is relative to the repository\'s top folder, or to',
+        'the working folder when it starts with ./ or ../ (as git reads it).',
+        '',
+        'Exit codes:',
+        '  0  compared (and no regression with --fail-on-regression)',
+        '  1  --fail-on-regression: at least one regression',
+        '  2  usage error, an unknown revision, or a file could not be read',
+        '',
+        'Examples:',
+        '  vacnet compare HEAD~1:plant.vacnet plant.vacnet',
+        '  vacnet compare --format markdown origin/main:plant.vacnet plant.vacnet > comment.md',
+      ].join('\n'),
+    )
+    .action(async (oldSide: string, newSide: string, options: { format: 'text' | 'markdown' | 'json'; failOnRegression?: boolean; settings: boolean }) => {
+      const { runCompare } = await import('./commands/compare.js');
+      exitCode = await runCompare(oldSide, newSide, { format: options.format, failOnRegression: options.failOnRegression === true, settings: options.settings }, io);
+    });
+
+  program
+    .command('show')
+    .summary('print a file with its computed results as comments (for git diff)')
+    .description(
+      'Print a .vacnet file followed by its computed results as // comments: the producer\'s operating point, ' +
+        'each inlet\'s worst-case vacuum, each pipe\'s velocities and the findings, one line each. Made as a git ' +
+        'text conversion, so that `git diff` shows how the results moved beside the text.',
+    )
+    .argument('<file>', 'the .vacnet file')
+    .addHelpText(
+      'after',
+      [
+        '',
+        'To see results in git diff, add to .gitattributes:',
+        '  *.vacnet diff=vacnet',
+        'and run once in the repository:',
+        '  git config diff.vacnet.textconv "npx vacnet show"',
+        '',
+        'Exit codes: 0 printed (whatever the file holds), 2 the file could not be read.',
+      ].join('\n'),
+    )
+    .action(async (file: string) => {
+      const { runShow } = await import('./commands/show.js');
+      exitCode = await runShow(file, io);
+    });
+
   try {
     await program.parseAsync([...argv]);
   } catch (error) {
