@@ -14,7 +14,7 @@ import type { CurvePoint, ProducerModel, ProducerUnit } from '../network/model.j
 import { type MonotoneCurve, pchip } from './pchip.js';
 import { ratedLossDrop } from './rated-loss-law.js';
 import { solveBracketed } from './scalar-solve.js';
-import type { PortFlow, TwoPortLaw } from './two-port-law.js';
+import type { PortFlow, TwoPortLaw, UpstreamPressure } from './two-port-law.js';
 
 /**
  * Proportional band of the vacuum relief: the system flow falls from the
@@ -131,6 +131,7 @@ export function producerLaw(unit: ProducerUnit, temperatureK: number): TwoPortLa
   const exhaust = unit.exhaust;
 
   let lastFlow = Number.NaN;
+  let lastInlet = Number.NaN;
   const solve = (pa: number, pb: number): Solved => {
     const rhoBasis = actual ? pa / rt : STANDARD_DENSITY; // Q = m / rhoBasis
     const rhoExhaust = pb / rt;
@@ -205,6 +206,50 @@ export function producerLaw(unit: ProducerUnit, temperatureK: number): TwoPortLa
       const out: PortFlow = { massFlowKgPerS: s.m, dFlowDPa: s.dPa, dFlowDPb: s.dPb };
       if (s.beyondCurve) out.limited = 'curve-end';
       return out;
+    },
+    inletPressureInto(m: number, pbIn: number, out: UpstreamPressure): boolean {
+      // The curve read the other way: p_a = p_b - V(Q(m, p_a)) + dp_exhaust(m), explicit on a
+      // standard-flow curve, by Newton on p_a on an actual-flow one (Q = m R T / p_a).
+      if (!Number.isFinite(m) || !(pbIn > PRESSURE_FLOOR_PA) || !Number.isFinite(pbIn)) return false;
+      const pb = pbIn;
+      const e = exhaust ? ratedLossDrop(exhaust, m, pb / rt) : { dropPa: 0, dDropDm: 0 };
+      let pa: number;
+      let v: { value: number; slope: number };
+      if (!actual) {
+        v = curve.at(m / STANDARD_DENSITY);
+        pa = pb - v.value + e.dropPa;
+      } else {
+        pa = Number.isFinite(lastInlet) ? lastInlet : 0.8 * pb;
+        v = curve.at((m * rt) / pa);
+        let converged = false;
+        for (let i = 0; i < WARM_NEWTON_STEPS * 4 && pa > PRESSURE_FLOOR_PA; i++) {
+          const h = pa - pb + v.value - e.dropPa;
+          const dh = 1 - (v.slope * m * rt) / (pa * pa);
+          if (!(dh > 0)) return false;
+          const next = pa - h / dh;
+          const done = Math.abs(next - pa) <= 1e-15 * Math.abs(next) + 1e-12;
+          pa = next;
+          if (!(pa > PRESSURE_FLOOR_PA)) return false;
+          v = curve.at((m * rt) / pa);
+          if (done) {
+            converged = true;
+            break;
+          }
+        }
+        if (!converged) return false;
+      }
+      // Past the relief's set vacuum the relief law applies: leave that to inverting `flow`.
+      if (!(pa > PRESSURE_FLOOR_PA) || (relief !== undefined && pb - pa > relief)) return false;
+      lastInlet = pa;
+      // g(m, pa, pb) = V(Q) - dp_exhaust - (pb - pa) = 0 (see solve): dpa/dm = -g_m/g_pa, dpa/dpb = -g_pb/g_pa.
+      const dq = actual ? rt / pa : 1 / STANDARD_DENSITY;
+      const gm = v.slope * dq - e.dDropDm;
+      const gpa = (actual ? (v.slope * -m * rt) / (pa * pa) : 0) + 1;
+      const gpb = e.dropPa / pb - 1;
+      out.pressurePa = pa;
+      out.dPressureDFlow = -gm / gpa;
+      out.dPressureDDown = -gpb / gpa;
+      return true;
     },
   };
 }

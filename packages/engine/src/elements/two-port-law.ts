@@ -38,6 +38,13 @@ export interface TwoPortLaw {
    * pressures from a known end inverts other laws numerically.
    */
   upstreamPressureInto?(m: number, pDown: number, out: UpstreamPressure): boolean;
+  /**
+   * For a law that moves air itself (a producer: port a its inlet, port b
+   * its outlet): the inlet pressure at which it moves mass flow m with its
+   * outlet at pOutlet, with its derivatives (dPressureDDown: by the outlet
+   * pressure); false when it cannot say directly (then invert `flow`).
+   */
+  inletPressureInto?(m: number, pOutlet: number, out: UpstreamPressure): boolean;
 }
 
 /** The inverse of a law at one flow: the upstream pressure and its derivatives. */

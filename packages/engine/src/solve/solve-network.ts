@@ -9,7 +9,8 @@
  * nodes form a forest, sparse LU otherwise); run damped Newton; classify
  * the outcome. Never throws and never returns NaN: failures are typed.
  */
-import { linearBackend, newtonSolve, type LocalSystem } from './newton.js';
+import { linearBackend, newtonSolve, type LocalSystem, type NewtonOutcome } from './newton.js';
+import { localTreeCase, TreeFlowSolver } from './tree-flow-solve.js';
 import { fillInitialPressures } from './initial-guess.js';
 import type { LawLimit, SolveEffort, SolveFailure, SolveFailureCause, NetworkSolveOptions, SolveResult, SolvedState, SolverNetwork } from './solve-types.js';
 import type { TwoPortLaw } from '../elements/two-port-law.js';
@@ -323,9 +324,13 @@ function solveInner(net: SolverNetwork, active: ArrayLike<number>, options: Netw
   const fillEvaluations = fillInitialPressures(sys, p, known, maxFixed);
   if (effort) effort.elementEvaluations += fillEvaluations;
 
-  const backend = linearBackend(sys);
-  let outcome = newtonSolve(sys, p, backend, { tolerance, maxIterations });
-  if (outcome.status !== 'converged' && init) {
+  // A tree hanging from one producer with air entering at tools: solved by
+  // the entry flows (tree-flow-solve.ts); anything else, or a case that
+  // solver hands back, by Newton on the node pressures.
+  let outcome: NewtonOutcome | null = options.method === 'newton' ? null : solveByEntryFlows(net, sys, sysElems, p, maxFixed, tolerance, effort);
+  const backend = outcome ? null : linearBackend(sys);
+  if (!outcome) outcome = newtonSolve(sys, p, backend!, { tolerance, maxIterations });
+  if (outcome.status !== 'converged' && init && backend) {
     // A warm start from another case can lead Newton astray: try again cold.
     const cold = new Float64Array(n);
     const coldFill = fillInitialPressures(sys, cold, new Uint8Array(n), maxFixed);
@@ -446,6 +451,64 @@ function solveInner(net: SolverNetwork, active: ArrayLike<number>, options: Netw
             message: `no solution within ${outcome.iterations} iterations (${outcome.status}); largest imbalance ${outcome.imbalanceFraction.toExponential(2)} of the total flow`,
           };
   return { ok: false, iterations: outcome.iterations, state: state(), failure };
+}
+
+// Tolerance of the entry-flow solve, a share of the network tolerance: its
+// last Newton step is one march, so it goes 1,000 times further, and a
+// case then agrees with the analysis's path solves to ~1e-12 (our choice).
+const ENTRY_FLOW_TOLERANCE_SHARE = 1e-3;
+const treeFlows = new TreeFlowSolver();
+
+/**
+ * The case by its entry flows when it is a tree hanging from one producer
+ * (localTreeCase), started from what the entries pass at the starting
+ * pressures; the outcome in Newton's terms, or null to use Newton.
+ * Writes the solved pressures into p.
+ */
+function solveByEntryFlows(
+  net: SolverNetwork,
+  sys: LocalSystem,
+  sysElems: Int32Array,
+  p: Float64Array,
+  ceilingPa: number,
+  tolerance: number,
+  effort?: SolveEffort,
+): NewtonOutcome | null {
+  const m = sys.la.length;
+  const drives = new Uint8Array(m);
+  for (let j = 0; j < m; j++) drives[j] = net.drives[sysElems[j]!]!;
+  const tc = localTreeCase(sys.n, sys.la, sys.lb, sys.fa, sys.fb, sys.laws, drives, ceilingPa);
+  if (!tc) return null;
+  const c = tc.treeCase;
+  const x0 = new Float64Array(c.entries);
+  for (let j = 0; j < c.entries; j++) {
+    const pv = p[tc.nodeOfSlot[c.entrySlot[j]!]!]!;
+    const fixed = c.entryFixedPa[j]!;
+    const q = c.entryFixedIsA[j] ? c.entryLaw[j]!.flow(fixed, pv).massFlowKgPerS : -c.entryLaw[j]!.flow(pv, fixed).massFlowKgPerS;
+    if (!(q > 0) || !Number.isFinite(q)) return null;
+    x0[j] = q;
+  }
+  const r = treeFlows.solve(c, x0, { tolerance: ENTRY_FLOW_TOLERANCE_SHARE * tolerance });
+  if (!r) {
+    if (effort) effort.elementEvaluations += treeFlows.lastEvaluations;
+    return null;
+  }
+  const flows = new Float64Array(m);
+  const limits: (LawLimit | undefined)[] = new Array(m);
+  for (let s = 0; s < c.count; s++) {
+    p[tc.nodeOfSlot[s]!] = r.pressure[s]!;
+    if (s === 0) continue;
+    flows[tc.elementOfSlot[s]!] = c.childIsA[s] ? r.through[s]! : 0 - r.through[s]!;
+  }
+  const rootIsA = 'law' in c.root && c.root.rootIsA;
+  flows[tc.rootElement] = rootIsA ? r.rootFlow : 0 - r.rootFlow;
+  limits[tc.rootElement] = r.rootLimit;
+  for (let j = 0; j < c.entries; j++) {
+    const e = tc.entryElement[j]!;
+    flows[e] = c.entryFixedIsA[j] ? r.entryFlow[j]! : 0 - r.entryFlow[j]!;
+    limits[e] = r.entryLimit[j];
+  }
+  return { status: 'converged', iterations: r.iterations, flows, limits, imbalanceFraction: r.imbalanceFraction, evaluations: r.evaluations };
 }
 
 /** What a limit means when the network does not say (SolverNetwork.classifyLimit). */

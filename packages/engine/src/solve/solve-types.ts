@@ -59,6 +59,12 @@ export interface NetworkSolveOptions {
   maxIterations?: number;
   /** Remove dead legs (parts with no way for air to pass) before solving (default true). */
   prune?: boolean;
+  /**
+   * 'auto' (default): a case that is a tree hanging from one producer, with
+   * air entering at tools, is solved by its entry flows (tree-flow-solve.ts),
+   * anything else by Newton on node pressures; 'newton': always Newton.
+   */
+  method?: 'auto' | 'newton';
 }
 
 export interface SolveFailure {

@@ -25,7 +25,7 @@ describe('performance', () => {
       if (!c.ok) throw new Error(c.failure.message);
       const e = effort();
       const t0 = performance.now();
-      const r = solveNetwork(g.net, c.elements, { prune: false }, e);
+      const r = solveNetwork(g.net, c.elements, { prune: false, method: 'newton' }, e);
       const ms = performance.now() - t0;
       console.log(`10,000-pipe tree, ${open} inlets open, all ${c.elements.length} elements in Newton: ${ms.toFixed(0)} ms, ${e.newtonIterations} iterations`);
       expect(r.ok).toBe(true);
@@ -42,13 +42,13 @@ describe('performance', () => {
     expect(a.failures).toEqual([]);
     expect(a.inlets.every((i) => i.worstCase?.method === 'greedy-swap')).toBe(true);
 
-    // One single solve of the design case, the plain way: all piping in Newton.
+    // One single solve of the design case, the plain way: all piping in Newton on node pressures.
     const g = buildNetworkGraph(m, { laws: defaultElementLaws });
     const c = caseElements(g, a.designCase!.openInlets.map((inlet) => ({ inlet, toolState: 'working' as const })));
     if (!c.ok) throw new Error(c.failure.message);
     const e = effort();
     const t1 = performance.now();
-    const r = solveNetwork(g.net, c.elements, { prune: false }, e);
+    const r = solveNetwork(g.net, c.elements, { prune: false, method: 'newton' }, e);
     const singleMs = performance.now() - t1;
     expect(r.ok).toBe(true);
 

@@ -122,3 +122,33 @@ describe('producerLaw (curve by PCHIP, ENGINEERING.md)', () => {
     }
   });
 });
+
+describe('producerLaw read the other way: the inlet pressure for a flow', () => {
+  const up = { pressurePa: 0, dPressureDFlow: 0, dPressureDDown: 0 };
+  it('standard basis: at each curve flow the inlet sits at the curve vacuum (the curve points themselves)', () => {
+    const law = producerLaw(unit(model()), T);
+    for (const p of curve.slice(1)) {
+      expect(law.inletPressureInto!(p.flowM3PerS * RHO_STD, P_ATM, up)).toBe(true);
+      expect(up.pressurePa).toBeCloseTo(P_ATM - p.vacuumPa, 6);
+    }
+  });
+  it('inverts the flow law on both bases, with an exhaust line, with derivatives as finite differences', () => {
+    const exhaust = { lossPa: 2 * 249.082, flowStdM3PerS: 0.2 };
+    for (const law of [producerLaw(unit(model()), T), producerLaw(unit(model({ flowBasis: 'actual' }), exhaust), T)]) {
+      for (const pa of [55000, 70000, 85000]) {
+        const m = law.flow(pa, P_ATM).massFlowKgPerS;
+        expect(law.inletPressureInto!(m, P_ATM, up)).toBe(true);
+        expect(up.pressurePa).toBeCloseTo(pa, 6);
+        const r = law.flow(pa, P_ATM);
+        expect(up.dPressureDFlow).toBeCloseTo(1 / r.dFlowDPa, 0);
+        expect(up.dPressureDDown).toBeCloseTo(-r.dFlowDPb / r.dFlowDPa, 9);
+      }
+    }
+  });
+  it('past the relief set vacuum it leaves the answer to the flow law', () => {
+    const law = producerLaw(unit(model({ reliefVacuumPa: 30000 })), T);
+    // 0.12 m3/s standard sits near 40 kPa on the curve: beyond the 30 kPa relief.
+    expect(law.inletPressureInto!(0.12 * RHO_STD, P_ATM, up)).toBe(false);
+    expect(law.inletPressureInto!(0.22 * RHO_STD, P_ATM, up)).toBe(true);
+  });
+});
