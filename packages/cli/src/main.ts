@@ -166,6 +166,39 @@ export async function main(argv: readonly string[], io: CommandIo = processIo())
       exitCode = await runShow(file, io);
     });
 
+  program
+    .command('init')
+    .summary('write a starter system (and a starter catalog if there is none)')
+    .description(
+      'Write a new, valid starter system to edit: a plant room and, per operator, a zone of two inlets on its own main, in the ' +
+        'units asked for. It uses the catalog given, or catalog.vacnet beside the file; a catalog that does not exist ' +
+        'is written with placeholder equipment. The new system is checked at once.',
+    )
+    .argument('[file]', 'the system file to write', 'system.vacnet')
+    .option('--name <title>', 'the system\'s title (default: from the file name)')
+    .option('--operators <n>', 'design operators cleaning at once', parsePositive, 1)
+    .addOption(new Option('--units <units>', 'units of the file and its results').choices(['imperial', 'si']).default('imperial'))
+    .option('--catalog <path>', 'the catalog to use (written with starter items if it does not exist)')
+    .option('--force', 'overwrite the system file if it exists (a catalog is never overwritten)')
+    .addHelpText(
+      'after',
+      [
+        '',
+        'Exit codes:',
+        '  0  written, and it checks without errors',
+        '  1  written, but the check finds errors (a catalog of your own that lacks something)',
+        '  2  usage error, the file exists (without --force), or a file could not be written',
+        '',
+        'Examples:',
+        '  vacnet init',
+        '  vacnet init --name "Harbour offices" --operators 3 --units si offices.vacnet',
+      ].join('\n'),
+    )
+    .action(async (file: string, options: { name?: string; operators: number; units: 'imperial' | 'si'; catalog?: string; force?: boolean }) => {
+      const { runInit } = await import('./commands/init.js');
+      exitCode = await runInit(file, options, io);
+    });
+
   try {
     await program.parseAsync([...argv]);
   } catch (error) {
@@ -183,6 +216,13 @@ export async function main(argv: readonly string[], io: CommandIo = processIo())
 function parseCount(text: string): number {
   if (!/^\d+$/.test(text.trim())) throw new InvalidArgumentError('expected a whole number of 0 or more.');
   return Number(text.trim());
+}
+
+/** A whole number of at least 1. */
+function parsePositive(text: string): number {
+  const value = parseCount(text);
+  if (value < 1) throw new InvalidArgumentError('expected a whole number of 1 or more.');
+  return value;
 }
 
 /** The package version, read from package.json one folder above this file (dist/ in every build). */
