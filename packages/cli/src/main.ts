@@ -76,6 +76,42 @@ export async function main(argv: readonly string[], io: CommandIo = processIo())
     });
 
   program
+    .command('report')
+    .summary('write a design report (HTML or Markdown) for one .vacnet file')
+    .description(
+      'Analyse one .vacnet file and write its design report: summary and cautions, design basis, the producer curve ' +
+        'with the system demand, a schematic of the network, inlet and pipe tables, findings, bill of materials and the ' +
+        'commissioning test sheet. HTML is one self-contained page (no scripts, no network); Markdown links its two ' +
+        'figures as SVG files written beside it.',
+    )
+    .argument('<file>', 'the .vacnet file of the system')
+    .option('-o, --out <file>', 'write the report here (.html or .md); without it the report goes to stdout')
+    .addOption(new Option('-f, --format <format>', 'report format (default: from the --out extension, else html)').choices(['html', 'markdown']))
+    .addHelpText(
+      'after',
+      [
+        '',
+        'Markdown: with --out report.md, the figures are written beside it as',
+        'report.producer-curve.svg and report.schematic.svg and linked as images;',
+        'on stdout they are left out. Rule codes link to docs/rules when that',
+        'folder lies inside the working folder.',
+        '',
+        'Exit codes:',
+        '  0  report written',
+        '  1  report written, but the file has errors (the report lists them)',
+        '  2  usage error, or a file could not be read or written',
+        '',
+        'Examples:',
+        '  vacnet report plant.vacnet --out plant-report.html',
+        '  vacnet report plant.vacnet --out review/plant.md',
+      ].join('\n'),
+    )
+    .action(async (file: string, options: { out?: string; format?: 'html' | 'markdown' }) => {
+      const { runReport } = await import('./commands/report.js');
+      exitCode = await runReport(file, { ...options, version: readVersion() }, io);
+    });
+
+  program
     .command('fmt')
     .summary('format .vacnet files the way the editor does')
     .description(
