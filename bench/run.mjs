@@ -14,6 +14,7 @@ import os from 'node:os';
 const GROUPS = {
   parse: './parse.mjs',
   cli: './cli-start.mjs',
+  lsp: './lsp-session.mjs',
 };
 
 const resultsFile = new URL('./results.json', import.meta.url);

@@ -4,6 +4,7 @@ import { NodeFileSystem } from 'langium/node';
 import { createConnection, ProposedFeatures } from 'vscode-languageserver/node';
 import { createVacnetServices } from './vacnet-module.js';
 import { WorkerEngineRunner } from './engine-bridge/worker-engine-runner.js';
+import { ProjectSettingsCache } from './engine-bridge/project-settings-cache.js';
 
 /**
  * Starts the language server on the transport given on the command line.
@@ -16,6 +17,7 @@ export function startServer(entry: string | undefined): void {
     { connection, ...NodeFileSystem },
     {
       liveAnalysis: true,
+      projectSettings: () => new ProjectSettingsCache(),
       ...(entry ? { engineRunner: () => new WorkerEngineRunner(entry), installDir: path.dirname(entry) } : {}),
     },
   );

@@ -29,6 +29,7 @@ import { VacnetConfigurationProvider } from './lsp/vacnet-configuration-provider
 import { DiagnosticsPublisher } from './lsp/diagnostics-publisher.js';
 import { RuleLinks } from './lsp/rule-links.js';
 import { AnalysisCache } from './engine-bridge/analysis-cache.js';
+import type { ProjectSettingsCache } from './engine-bridge/project-settings-cache.js';
 import { InProcessEngineRunner, type EngineRunner } from './engine-bridge/engine-runner.js';
 
 /** Services of our own, added to Langium's. */
@@ -61,6 +62,8 @@ export interface VacnetServiceOptions {
   engineRunner?: () => EngineRunner;
   /** The folder of the running server's entry file, to find docs/rules for the diagnostics' links. */
   installDir?: string;
+  /** Where project settings files (vacnet.json) are read; without it none apply (a browser has no disk). */
+  projectSettings?: () => ProjectSettingsCache;
 }
 
 export function createVacnetModule(options: VacnetServiceOptions = {}): Module<VacnetServices, PartialLangiumServices & VacnetAddedServices> {
@@ -76,7 +79,7 @@ export function createVacnetModule(options: VacnetServiceOptions = {}): Module<V
     },
     engine: {
       Runner: () => options.engineRunner?.() ?? new InProcessEngineRunner(),
-      AnalysisCache: (services) => new AnalysisCache(services, services.engine.Runner, options.liveAnalysis === true),
+      AnalysisCache: (services) => new AnalysisCache(services, services.engine.Runner, options.liveAnalysis === true, options.projectSettings?.()),
     },
     lsp: {
       Formatter: (services) => new VacnetFormatter(services),
@@ -90,7 +93,7 @@ export function createVacnetModule(options: VacnetServiceOptions = {}): Module<V
       InlayHintProvider: (services) => new VacnetInlayHintProvider(services),
       CodeActionProvider: (services) => new VacnetCodeActionProvider(services),
       DiagnosticsPublisher: (services) => new DiagnosticsPublisher(services, services.engine.AnalysisCache, services.lsp.RuleLinks),
-      RuleLinks: () => new RuleLinks(options.installDir ?? process.cwd()),
+      RuleLinks: () => new RuleLinks(options.installDir),
     },
   };
 }
@@ -125,6 +128,8 @@ export function createVacnetServices(
     // Created now so that its build listener runs before Langium's diagnostics handler (registered when the server starts).
     const cache = Vacnet.engine.AnalysisCache;
     cache.useSettings(shared.workspace.ConfigurationProvider as VacnetConfigurationProvider);
+    // Created now too, so it prepares the hints of each analysis as it comes in.
+    void Vacnet.lsp.InlayHintProvider;
     if (context.connection) Vacnet.lsp.DiagnosticsPublisher.takeOver(context.connection);
   }
   return { shared, Vacnet };

@@ -70,10 +70,17 @@ export function waitingResult(lowered: LoweredSystem): EngineResult {
 export function placeEngineRun(lowered: LoweredSystem, run: EngineRun, filePath: string): EngineResult {
   const { analysis, findings, suppressed } = run;
   const fallback = systemRange(lowered);
+  // A large system names the same elements in many findings (each inlet of each worst-case set): find each place once.
+  const places = new Map<string, ReturnType<typeof locateElementSource>>();
+  const locate = (ref: Finding['element']) => {
+    const key = `${ref.kind}\u0000${ref.name}\u0000${ref.property ?? ''}`;
+    if (!places.has(key)) places.set(key, locateElementSource(lowered.sources, ref));
+    return places.get(key);
+  };
   const toDiagnostic = (finding: Finding): VacnetDiagnostic => {
     const related: NonNullable<VacnetDiagnostic['related']> = [];
     for (const r of finding.related ?? []) {
-      const place = locateElementSource(lowered.sources, r.element);
+      const place = locate(r.element);
       if (!place) continue;
       related.push({ path: place.uri ? pathOf(place.uri, filePath) : filePath, range: place.range, message: r.message, ...(place.uri ? { uri: place.uri } : {}) });
     }
@@ -81,7 +88,7 @@ export function placeEngineRun(lowered: LoweredSystem, run: EngineRun, filePath:
       severity: finding.severity,
       code: finding.code,
       message: finding.message,
-      range: locateElement(lowered.sources, finding.element) ?? fallback,
+      range: locate(finding.element)?.range ?? fallback,
       source: 'engine',
       ...(related.length > 0 ? { related } : {}),
       ...(finding.fix ? { data: { ...finding.fix, element: finding.element } } : { data: { element: finding.element } }),

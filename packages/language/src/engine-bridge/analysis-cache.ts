@@ -9,6 +9,8 @@ import { analysisBlocked, ANALYSIS_FAILED, placeEngineRun, waitingResult, type E
 import type { EngineRun } from './engine-run.js';
 import type { EngineRunner } from './engine-runner.js';
 import { applySettings, DEFAULT_SETTINGS, type VacnetSettings } from './workspace-settings.js';
+import { applyProjectSettings } from '../settings/project-settings.js';
+import { ProjectSettingsCache } from './project-settings-cache.js';
 
 /** Where a document's analysis stands. */
 export type AnalysisStatus =
@@ -42,6 +44,16 @@ export interface DocumentAnalysis {
   engineMs?: number;
   /** What started it: a build of the document, or a change of the editor settings (the text and Langium's diagnostics unchanged). */
   trigger: 'build' | 'settings';
+  /** Which hints the editor shows for it: the editor settings and the project settings file must both allow a kind. */
+  hints: VacnetSettings['hints'];
+  /** The project settings file applied (vacnet.json), when there is one. */
+  settingsPath?: string;
+}
+
+/** With VACNET_TRACE set, the phases of each analysis go to stderr with their times (ms since the server started). */
+const TRACE = typeof process !== 'undefined' && !!process.env?.VACNET_TRACE;
+function trace(uri: string, generation: number, phase: string): void {
+  if (TRACE) process.stderr.write(`vacnet-trace ${performance.now().toFixed(0)} ${uri.split('/').pop()} #${generation} ${phase}\n`);
 }
 
 /** The editor settings the cache reads; the configuration provider supplies them in the server. */
@@ -73,13 +85,24 @@ export class AnalysisCache {
   private generations = 0;
   private settingsSource: SettingsSource = { vacnet: DEFAULT_SETTINGS };
 
-  /** `live`: analyse documents as they are built; otherwise the cache stays empty (headless use). */
+  /**
+   * `live`: analyse documents as they are built; otherwise the cache stays
+   * empty (headless use). `project`: where the project settings files are
+   * read (the Node server); without it none apply (the browser).
+   */
   constructor(
     private readonly services: LangiumServices,
     private readonly runner: EngineRunner,
     readonly live: boolean,
+    readonly project?: ProjectSettingsCache,
   ) {
     if (!live) return;
+    if (project) {
+      project.onDidLoad((folder) => this.reanalyse((uri) => project.folderOf(uri) === folder));
+      services.shared.lsp?.DocumentUpdateHandler?.onWatchedFilesChange?.((params) => {
+        if (params.changes.some((c) => ProjectSettingsCache.isSettingsFile(c.uri)) && project.forget()) this.reanalyse(() => true);
+      });
+    }
     const builder = services.shared.workspace.DocumentBuilder;
     builder.onDocumentPhase(DocumentState.Validated, (document) => this.validated(document));
     builder.onUpdate((_changed, deleted) => {
@@ -150,7 +173,9 @@ export class AnalysisCache {
   private validated(document: LangiumDocument, trigger: DocumentAnalysis['trigger'] = 'build'): void {
     const uri = document.uri.toString();
     const generation = ++this.generations;
-    const base = { uri, version: document.textDocument.version, generation, settingsDiagnostics: [] as VacnetDiagnostic[], trigger };
+    trace(uri, generation, `validated v${document.textDocument.version}`);
+    const settings = this.settings;
+    const base = { uri, version: document.textDocument.version, generation, settingsDiagnostics: [] as VacnetDiagnostic[], trigger, hints: settings.hints };
     this.clearTimer(uri);
     const system = (document.parseResult.value as Document | undefined)?.systems?.[0];
     if (!system) {
@@ -173,10 +198,24 @@ export class AnalysisCache {
       this.set({ ...base, status: 'blocked', lowered, result: waitingResult(lowered) });
       return;
     }
-    const settings = this.settings;
-    const model = applySettings(lowered.model, settings, statesUnits(system));
-    const settingsDiagnostics = settingsProblems(settings, lowered);
+    // The project settings file (vacnet.json) beneath the file's own settings, as `vacnet check` applies it, and the editor's beneath both.
+    const project = this.project?.forDocument(document.uri) ?? 'none';
+    if (project === 'loading') {
+      // Analysed once the file is read (onDidLoad).
+      this.set({ ...base, status: 'pending', lowered });
+      return;
+    }
+    const fileUnits = statesUnits(system);
+    const projected = project === 'none' ? lowered.model : applyProjectSettings(lowered.model, project.settings, fileUnits);
+    const model = applySettings(projected, settings, fileUnits || (project !== 'none' && project.settings.displayUnits !== undefined));
+    const settingsDiagnostics = [...settingsProblems(settings, lowered), ...(project === 'none' ? [] : unreadableSettings(project.diagnostics, lowered))];
+    if (project !== 'none') {
+      const allowed = project.settings.hints;
+      base.hints = { inletVacuum: settings.hints.inletVacuum && allowed.inlets, pipeVelocity: settings.hints.pipeVelocity && allowed.pipes, producer: settings.hints.producer && allowed.producer };
+      if (project.path) Object.assign(base, { settingsPath: project.path });
+    }
     const fingerprint = fingerprintOf(model);
+    trace(uri, generation, 'lowered');
     const known = this.runs.get(uri);
     const state: DocumentAnalysis = { ...base, status: 'pending', lowered, model, settingsDiagnostics };
     if (known && known.fingerprint === fingerprint) {
@@ -188,7 +227,9 @@ export class AnalysisCache {
     const start = () => {
       this.timers.delete(uri);
       if (this.states.get(uri)?.generation !== generation) return;
+      trace(uri, generation, 'engine job sent');
       void this.runner.run(uri, model, this.services.shared.workspace.TextDocuments?.get(uri) !== undefined).then((outcome) => {
+        trace(uri, generation, `engine job ${outcome.kind}${outcome.kind === 'done' ? ` (${outcome.ms.toFixed(0)} ms in the engine)` : ''}`);
         const latest = this.states.get(uri);
         // A newer build took over, or the text moved on since: this result is stale.
         if (!latest || latest.generation !== generation || latest.version !== this.versionOf(uri)) return;
@@ -205,7 +246,9 @@ export class AnalysisCache {
           this.set({ ...latest, status: 'failed', result: failure(lowered, `the findings could not be placed (${messageOf(error)})`) });
           return;
         }
+        trace(uri, generation, 'findings placed');
         this.set({ ...latest, status: 'ready', result, engineMs: outcome.ms });
+        trace(uri, generation, 'published');
       });
     };
     const delay = settings.debounceMs;
@@ -219,9 +262,15 @@ export class AnalysisCache {
 
   /** Re-analyses every document the cache knows, with the settings now in force (their text is unchanged). */
   private reanalyseAll(): void {
+    this.reanalyse(() => true);
+  }
+
+  private reanalyse(which: (uri: URI) => boolean): void {
     const documents = this.services.shared.workspace.LangiumDocuments;
     for (const uri of [...this.states.keys()]) {
-      const document = documents.getDocument(URI.parse(uri));
+      const parsed = URI.parse(uri);
+      if (!which(parsed)) continue;
+      const document = documents.getDocument(parsed);
       if (document && document.state >= DocumentState.Validated) this.validated(document, 'settings');
     }
   }
@@ -278,6 +327,12 @@ function settingsProblems(settings: VacnetSettings, lowered: LoweredSystem): Vac
     range,
     source: 'engine',
   }));
+}
+
+/** A settings file that could not be read is said on the system (its own problems are shown on the settings file). */
+function unreadableSettings(diagnostics: VacnetDiagnostic[], lowered: LoweredSystem): VacnetDiagnostic[] {
+  const range = waitingResult(lowered).diagnostics[0]!.range;
+  return diagnostics.filter((d) => d.code === 'file-unreadable').map((d) => ({ ...d, range }));
 }
 
 function failure(lowered: LoweredSystem | undefined, message: string): EngineResult {

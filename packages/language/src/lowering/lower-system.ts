@@ -122,7 +122,7 @@ class Lowering {
     for (const scenario of members.filter(ast.isScenario)) {
       model.scenarios.push({
         name: scenario.name,
-        open: scenario.openings.map((o) => ({ inlet: o.inlet.$refText, toolState: o.state === 'lifted' ? 'lifted' : 'working' })),
+        open: scenario.openings.map((o) => ({ inlet: o.inlet?.$refText ?? '', toolState: o.state === 'lifted' ? 'lifted' : 'working' })),
       });
       this.sources.add('scenario', scenario.name, scenario);
     }
@@ -538,7 +538,8 @@ class Lowering {
         : { kind: 'point', point: this.point(node.at?.$refText, plantInlets) },
       hose: hoseNode ? this.hose(hoseNode) : { name: '', lengthM: 0, boreM: 0, conductive: false },
       tool: toolNode ? this.tool(toolNode) : { name: '', working: { kind: 'orifice', diameterM: 0, dischargeCoefficient: DEFAULT_DISCHARGE_COEFFICIENT } },
-      ...(room ? { label: unquote(room.label) } : {}),
+      // A half-typed `room` (the editor's text mid-edit) has no label yet.
+      ...(typeof room?.label === 'string' ? { label: unquote(room.label) } : {}),
       publicArea: flags.has('public'),
       locked: flags.has('locked'),
       rules: this.elementRules(props),

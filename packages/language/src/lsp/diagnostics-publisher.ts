@@ -4,6 +4,7 @@ import type { Connection, Diagnostic, DiagnosticRelatedInformation, PublishDiagn
 import type { VacnetDiagnostic } from '../diagnostic.js';
 import type { AnalysisCache, DocumentAnalysis } from '../engine-bridge/analysis-cache.js';
 import type { RuleLinks } from './rule-links.js';
+import { settingsFileUri } from '../engine-bridge/project-settings-cache.js';
 
 /**
  * How long structural diagnostics wait for a pending analysis, ms, so that a
@@ -42,6 +43,7 @@ export class DiagnosticsPublisher {
     private readonly links: RuleLinks,
   ) {
     cache.onDidChange((state) => this.analysisChanged(state));
+    cache.project?.onDidLoad(() => this.publishSettingsFiles());
     services.shared.lsp.LanguageServer.onInitialize((params) => {
       this.inlayHintRefresh = params.capabilities.workspace?.inlayHint?.refreshSupport === true;
     });
@@ -53,6 +55,23 @@ export class DiagnosticsPublisher {
     const original = connection.sendDiagnostics.bind(connection);
     this.send = (params) => void original(params).catch(() => undefined);
     connection.sendDiagnostics = async (params: PublishDiagnosticsParams) => this.fromLangium(params);
+  }
+
+  /** The project settings files whose problems were published last, by URI. */
+  private settingsFilesShown = new Set<string>();
+
+  /** Publishes the problems of each project settings file (vacnet.json) in use, on that file; clears those no longer in use. */
+  private publishSettingsFiles(): void {
+    if (!this.send || !this.cache.project) return;
+    const base = this.cache.settings.rulesDocsBaseUrl;
+    const shown = new Set<string>();
+    for (const file of this.cache.project.files()) {
+      const uri = settingsFileUri(file.path!);
+      shown.add(uri);
+      this.send({ uri, diagnostics: file.diagnostics.map((d) => this.withLink(toLspDiagnostic(d, uri), base)) });
+    }
+    for (const uri of this.settingsFilesShown) if (!shown.has(uri)) this.send({ uri, diagnostics: [] });
+    this.settingsFilesShown = shown;
   }
 
   /** Whether the diagnostics of the document's latest analysis, engine part included, have gone out. */

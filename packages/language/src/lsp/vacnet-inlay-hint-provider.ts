@@ -24,38 +24,61 @@ export class VacnetInlayHintProvider implements InlayHintProvider {
 
   constructor(services: LangiumServices & { engine: { AnalysisCache: AnalysisCache } }) {
     this.cache = services.engine.AnalysisCache;
+    // Build the hints of a new analysis as soon as it is in, so that requests only pick the lines in view.
+    this.cache.onDidChange((state) => {
+      if (state.status === 'ready') setImmediate(() => this.hintsOf(state));
+    });
   }
+
+  private hintsOf(state: DocumentAnalysis): InlayHint[] {
+    let built = this.built.get(state);
+    if (!built) {
+      built = state.result?.analysis ? allHints(state) : [];
+      this.built.set(state, built);
+    }
+    return built;
+  }
+
+  /** Every hint of an analysed version, built once (editors ask again on each scroll). */
+  private readonly built = new WeakMap<DocumentAnalysis, InlayHint[]>();
 
   getInlayHints(document: LangiumDocument, params: InlayHintParams): InlayHint[] | undefined {
     const state = this.cache.current(document);
     if (!state?.result?.analysis || !state.lowered) return [];
-    const analysis = state.result.analysis;
-    const show = this.cache.settings.hints;
-    const text = display(state.model?.displayUnits);
-    const hints: InlayHint[] = [];
-    const add = (node: AstNode | undefined, label: string, tooltip: string) => {
-      const end = node?.$cstNode && endOfFirstLine(node.$cstNode);
-      if (!end || !inside(end, params.range)) return;
-      hints.push({ position: end, label, paddingLeft: true, tooltip: { kind: 'markdown', value: tooltip } });
-    };
-    if (show.producer) {
-      for (const producer of analysis.producers) add(nodeOf(state, 'producer', producer.name), producerLabel(producer, text), producerTooltip(producer, text));
-    }
-    if (show.pipeVelocity) {
-      for (const pipe of analysis.pipes) {
-        if (pipe.minVelocityMPerS === null || !Number.isFinite(pipe.minVelocityMPerS)) continue;
-        add(nodeOf(state, 'pipe', pipe.name), `min ${text.velocity(pipe.minVelocityMPerS)}`, pipeTooltip(pipe, text));
-      }
-    }
-    if (show.inletVacuum) {
-      for (const inlet of analysis.inlets) {
-        const wc = inlet.worstCase;
-        if (!wc || !Number.isFinite(wc.toolVacuumPa) || !Number.isFinite(wc.flowStdM3PerS)) continue;
-        add(nodeOf(state, 'inlet', inlet.name), inletLabel(inlet, text), inletTooltip(inlet, text));
-      }
-    }
-    return hints.sort((a, b) => a.position.line - b.position.line || a.position.character - b.position.character);
+    return this.hintsOf(state).filter((h) => inside(h.position, params.range));
   }
+}
+
+/** All hints of an analysis, in document order. */
+function allHints(state: DocumentAnalysis): InlayHint[] {
+  const analysis = state.result!.analysis!;
+  // The kinds the editor settings and the project settings file both allow (set with the analysis; a change of either analyses again).
+  const show = state.hints;
+  const text = display(state.model?.displayUnits);
+  const hints: InlayHint[] = [];
+  const add = (node: AstNode | undefined, label: () => string, tooltip: () => string) => {
+    const cst = node?.$cstNode;
+    if (!cst) return;
+    const position = cst.range.end.line === cst.range.start.line ? cst.range.end : endOfFirstLine(cst);
+    hints.push({ position, label: label(), paddingLeft: true, tooltip: { kind: 'markdown', value: tooltip() } });
+  };
+  if (show.producer) {
+    for (const producer of analysis.producers) add(nodeOf(state, 'producer', producer.name), () => producerLabel(producer, text), () => producerTooltip(producer, text));
+  }
+  if (show.pipeVelocity) {
+    for (const pipe of analysis.pipes) {
+      if (pipe.minVelocityMPerS === null || !Number.isFinite(pipe.minVelocityMPerS)) continue;
+      add(nodeOf(state, 'pipe', pipe.name), () => `min ${text.velocity(pipe.minVelocityMPerS!)}`, () => pipeTooltip(pipe, text));
+    }
+  }
+  if (show.inletVacuum) {
+    for (const inlet of analysis.inlets) {
+      const wc = inlet.worstCase;
+      if (!wc || !Number.isFinite(wc.toolVacuumPa) || !Number.isFinite(wc.flowStdM3PerS)) continue;
+      add(nodeOf(state, 'inlet', inlet.name), () => inletLabel(inlet, text), () => inletTooltip(inlet, text));
+    }
+  }
+  return hints.sort((a, b) => a.position.line - b.position.line || a.position.character - b.position.character);
 }
 
 /** The label after an inlet: tool vacuum and flow in its worst case. */

@@ -6,7 +6,8 @@
 // codeAction returns (Command | CodeAction)[] with WorkspaceEdit changes.
 // Expected numbers come from the headless loader on the same file (the same
 // engine on this side of the wire).
-import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { formatQuantity } from '@vacnet/engine';
@@ -167,5 +168,33 @@ describe('vacnet language server (bundled): settings from workspace/configuratio
     expect(fileWins.severity).toBe(3);
     expect(fileWins.message).toMatch(/ fpm /);
     expect(await shutdown(session.server)).toBe(0);
+  });
+});
+
+describe('vacnet language server (bundled): the project settings file', () => {
+  it('applies vacnet.json as `vacnet check` does, and shows its problems on it', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'vacnet-project-'));
+    try {
+      mkdirSync(join(dir, '.git'));
+      mkdirSync(join(dir, 'systems'));
+      // One good setting and one misspelt rule (a settings problem placed in vacnet.json).
+      writeFileSync(join(dir, 'vacnet.json'), '{\n  "rules": {\n    "slow-carrying-velocity": { "severity": "error" },\n    "slow-carying-velocity": { "severity": "info" }\n  }\n}\n');
+      const file = join(dir, 'systems', 'slow.vacnet');
+      writeFileSync(file, SLOW_SYSTEM);
+      const session = await startEngineSession({ workspaceFolder: dir });
+      const uri = pathToFileURL(file).href;
+      await session.open(uri, SLOW_SYSTEM);
+      await session.settled(uri, 1);
+      const published = session.latest(uri)!;
+      const headless = (await loadDocuments([file], { analyse: true, settings: 'discover' })).files[0]!;
+      expect(published.diagnostics.map(key).sort()).toEqual(headless.diagnostics.map((d) => key({ ...d, severity: SEVERITY[d.severity] })).sort());
+      expect(published.diagnostics.find((d) => d.code === 'slow-carrying-velocity')?.severity).toBe(1);
+      const settingsUri = pathToFileURL(join(dir, 'vacnet.json')).href;
+      const onSettings = session.latest(settingsUri);
+      expect(onSettings?.diagnostics.map((d) => `${d.code}@${d.range.start.line}`)).toEqual(['settings-unknown-name@3']);
+      expect(await shutdown(session.server)).toBe(0);
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
   });
 });
