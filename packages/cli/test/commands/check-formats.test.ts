@@ -67,6 +67,14 @@ describe('vacnet check --format sarif', () => {
       expect(rule.help.markdown).toBe(page);
       expect(rule.fullDescription.text.length).toBeGreaterThan(20);
     }
+    // Related places (the inlet behind a slow pipe, the worst-case set...) are located too, relative to SRCROOT.
+    const related = sarifRun.results.flatMap((r: { relatedLocations?: { id: number; message: { text: string }; physicalLocation: { artifactLocation: { uri: string; uriBaseId: string }; region: { startLine: number } } }[] }) => r.relatedLocations ?? []);
+    expect(related.length).toBeGreaterThan(0);
+    for (const place of related) {
+      expect(place.physicalLocation.artifactLocation.uriBaseId).toBe('SRCROOT');
+      expect(place.physicalLocation.region.startLine).toBeGreaterThanOrEqual(1);
+      expect(place.message.text.length).toBeGreaterThan(0);
+    }
     // Fingerprints are unique within the run.
     const prints = sarifRun.results.map((r: { partialFingerprints: Record<string, string> }) => r.partialFingerprints['vacnetFinding/v1']);
     expect(new Set(prints).size).toBe(prints.length);
