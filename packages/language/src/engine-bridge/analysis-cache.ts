@@ -34,7 +34,7 @@ export interface DocumentAnalysis {
   generation: number;
   status: AnalysisStatus;
   lowered?: LoweredSystem;
-  /** The model the engine saw: the lowered one with the editor's settings. */
+  /** The model the engine saw: the lowered one with the project's and the editor's settings beneath the file's. */
   model?: SystemModel;
   /** Findings placed on this version's tokens (for `ready`, `blocked`, `failed`). */
   result?: EngineResult;
