@@ -147,6 +147,16 @@ function analyse(model: SystemModel, options: AnalysisOptions & AnalysisInternal
         if (d.ok) {
           producers[0]!.marginFraction = d.marginFraction;
           producers[0]!.demand = { flowStdM3PerS: d.flowStdM3PerS, vacuumPa: d.vacuumPa };
+        } else if (d.infeasible) {
+          // No margin to give: the producer cannot bring the design case's tools to their need.
+          failures.push({
+            stage: 'demand',
+            subject: producers[0]!.name,
+            openInlets: designCase.openInlets,
+            cause: 'infeasible-demand',
+            element: { kind: 'producer', name: producers[0]!.name },
+            message: d.reason,
+          });
         }
       }
     } else {

@@ -86,6 +86,13 @@ export interface InletPoint {
   toolAirPowerW: number;
   /** Vacuum lost along the hose (tool vacuum is inlet vacuum minus this). */
   hoseLossPa: number;
+  /**
+   * Present when the tool runs choked (sonic: the hose-end pressure below
+   * 0.5283 of ambient). The flow is then the nozzle's critical flow, fixed
+   * by the room side alone, and does not rise with more vacuum: a physical
+   * state of the design, reported (rule tool-choked), not a failed solve.
+   */
+  limited?: 'choked';
 }
 
 /** One pipe in one solved case (a pipe split by inlets is reported whole). */
@@ -103,7 +110,15 @@ export interface PipePoint {
 
 /** A case that could not be solved. */
 export interface AnalysisFailure {
-  /** What was being solved: `worst-case`, `scenario`, `single-operator`, `max-velocity`, `commissioning`, `demand`. */
+  /**
+   * What was being solved: `single-operator`, `worst-case`, `design` (the
+   * design case), `demand` (the search for the producer vacuum at which the
+   * design case's tools get what they need; `infeasible-demand` there means
+   * no vacuum does), `max-velocity` (never `infeasible-demand`: that case is
+   * extrapolated past the curve, see PipeAnalysis.maxVelocityLimited),
+   * `scenario`, `commissioning`. The design stages (the first four) are
+   * what the rule producer-short reads.
+   */
   stage: string;
   /** The inlet, scenario or pipe the case was for. */
   subject: ElementName;
@@ -127,6 +142,8 @@ export interface WorstCase {
   hoseLossPa: number;
   /** What the tool needs at the hose end (tool kind, else design default); null when neither says. */
   requiredToolVacuumPa: number | null;
+  /** Present when this inlet's tool runs choked in its worst case (see InletPoint.limited). */
+  limited?: 'choked';
 }
 
 export interface InletAnalysis {
@@ -159,6 +176,13 @@ export interface PipeAnalysis {
   maxVelocityInlets: ElementName[];
   /** Pressure loss along the pipe in that same highest-flow case. */
   lossPa: number | null;
+  /**
+   * Present when that case draws past the last point of the producer's
+   * curve: the producer is then extrapolated along the curve's last slope
+   * toward zero vacuum. The case only bounds velocities, so this is a note,
+   * not a failure; the design case (tools working) judges the producer.
+   */
+  maxVelocityLimited?: 'curve-end';
 }
 
 export type OperatorSource = 'options' | 'stated' | 'areas' | 'default';

@@ -8,7 +8,7 @@ import { R_AIR, STANDARD_DENSITY } from '../air/standard-air.js';
 import { caseElements, type NetworkGraph } from '../network/graph.js';
 import type { ScenarioOpening } from '../network/model.js';
 import { solveNetwork } from '../solve/solve-network.js';
-import type { SolveEffort, SolveFailure, SolveResult } from '../solve/solve-types.js';
+import type { LawLimit, SolveEffort, SolveFailure, SolveResult } from '../solve/solve-types.js';
 import type { InletPoint, PipePoint, ToolState } from './analysis-types.js';
 import { PathFlowSolver, type PathEntry, type PathSolved } from './path-flow-solver.js';
 import { pathElements, type PathTree } from './path-tree.js';
@@ -24,6 +24,8 @@ export interface CaseState {
   pressurePa: ArrayLike<number>;
   elements: ArrayLike<number>;
   flowKgPerS: ArrayLike<number>;
+  /** Elements whose law held a limit at the solution (an accepted state, when the case solved). */
+  limited?: readonly { element: number; limit: LawLimit }[];
 }
 
 /** A solved state with lookups by node and element. */
@@ -42,6 +44,10 @@ export class CaseView {
   }
   has(element: number): boolean {
     return this.flow.has(element);
+  }
+  /** The limit an element's law held at the solution, if any. */
+  limitOf(element: number): LawLimit | undefined {
+    return this.state.limited?.find((l) => l.element === element)?.limit;
   }
 }
 
@@ -98,10 +104,16 @@ export class CaseRunner {
   }
 
   /** Solves one case: the given inlets open with their tools (or the test orifice in the valve). */
-  solve(openings: readonly ScenarioOpening[], mode: CaseMode = 'tool', fixedOverridesPa?: ReadonlyMap<number, number>, dropProducers = false): CaseOutcome {
+  solve(
+    openings: readonly ScenarioOpening[],
+    mode: CaseMode = 'tool',
+    fixedOverridesPa?: ReadonlyMap<number, number>,
+    dropProducers = false,
+    acceptCurveEnd = false,
+  ): CaseOutcome {
     const exact = this.tree.exact;
     if (exact) {
-      const fast = this.solveByFlows(openings, mode, fixedOverridesPa, dropProducers);
+      const fast = this.solveByFlows(openings, mode, fixedOverridesPa, dropProducers, acceptCurveEnd);
       if (fast) {
         for (let i = 0; i < fast.nodes.length; i++) this.guess[fast.nodes[i]!] = fast.pressurePa[i]!;
         const view = new CaseView(fast);
@@ -130,7 +142,7 @@ export class CaseRunner {
     const res: SolveResult = solveNetwork(
       this.graph.net,
       elements,
-      { initialPressurePa: touched ? this.treeStart : this.guess, fixedOverridesPa, prune: !this.tree.exact },
+      { initialPressurePa: touched ? this.treeStart : this.guess, fixedOverridesPa, prune: !this.tree.exact, acceptCurveEnd },
       this.effort,
     );
     if (touched) for (const node of touched) this.treeStart[node] = NaN;
@@ -147,7 +159,13 @@ export class CaseRunner {
    * (no flows seen yet, other held pressures, a repeated inlet, or a case
    * it hands back), and the network solver then does.
    */
-  private solveByFlows(openings: readonly ScenarioOpening[], mode: CaseMode, fixed: ReadonlyMap<number, number> | undefined, dropProducers: boolean): PathSolved | null {
+  private solveByFlows(
+    openings: readonly ScenarioOpening[],
+    mode: CaseMode,
+    fixed: ReadonlyMap<number, number> | undefined,
+    dropProducers: boolean,
+    acceptCurveEnd: boolean,
+  ): PathSolved | null {
     const g = this.graph;
     let rootPa: number | undefined;
     if (fixed && fixed.size > 0) {
@@ -177,7 +195,7 @@ export class CaseRunner {
           : { valve: ti.node, hose: ie.hose, hoseEnd: ti.hoseEndNode, entry: o.toolState === 'lifted' ? ie.toolLifted : ie.toolWorking },
       );
     }
-    return this.pathSolver.solve(entries, x0, rootPa, this.effort);
+    return this.pathSolver.solve(entries, x0, rootPa, this.effort, acceptCurveEnd);
   }
 
   private static stateIndex(o: ScenarioOpening, mode: CaseMode): number {
@@ -352,7 +370,7 @@ export class CaseRunner {
     if (pInlet === undefined || pEnd === undefined || m === undefined) return null;
     const roomFlow = (m * R_AIR * g.temperatureK) / ambient;
     const toolVacuum = ambient - pEnd;
-    return {
+    const point: InletPoint = {
       name: inlet,
       toolState,
       inletVacuumPa: ambient - pInlet,
@@ -363,6 +381,8 @@ export class CaseRunner {
       toolAirPowerW: m > 0 && toolVacuum > 0 ? roomFlow * toolVacuum : 0,
       hoseLossPa: pEnd - pInlet,
     };
+    if (mode === 'tool' && view.limitOf(entry) === 'choked') point.limited = 'choked';
+    return point;
   }
 
   /** Results along a pipe that took part in a case; null when no part of it did. */

@@ -72,10 +72,11 @@ export class PathFlowSolver {
   /**
    * Solves a case from starting flows x0 (kg/s, one per entry, > 0). With
    * `rootPa` the producer point is held at that pressure and the producer
-   * left out. Returns the solved state, or null when the network solver
-   * should take the case.
+   * left out. With `acceptCurveEnd` a producer past the end of its curve
+   * is an accepted state (see NetworkSolveOptions). Returns the solved
+   * state, or null when the network solver should take the case.
    */
-  solve(entries: readonly PathEntry[], x0: ArrayLike<number>, rootPa: number | undefined, effort: SolveEffort): PathSolved | null {
+  solve(entries: readonly PathEntry[], x0: ArrayLike<number>, rootPa: number | undefined, effort: SolveEffort, acceptCurveEnd = false): PathSolved | null {
     const k = entries.length;
     if (k === 0 || k > MAX_ENTRIES || !(this.ambient > 0)) return null;
     const { tree } = this;
@@ -168,7 +169,8 @@ export class PathFlowSolver {
     // --- limits at the solution, and what they mean for the case
     const limited: SolvedState['limited'] = [];
     const classify = (e: number, limit: LawLimit, pa: number, pb: number, flow: number) => {
-      const cause = net.classifyLimit ? net.classifyLimit(e, limit, pa, pb, flow) : defaultLimitCause(net, e, limit);
+      const cause =
+        acceptCurveEnd && limit === 'curve-end' ? null : net.classifyLimit ? net.classifyLimit(e, limit, pa, pb, flow) : defaultLimitCause(net, e, limit);
       limited.push({ element: e, limit, cause });
       return cause;
     };

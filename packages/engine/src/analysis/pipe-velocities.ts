@@ -10,7 +10,9 @@
  * most air alone (the k strongest; tools lifted, which draws most), at the
  * producer-side end, where it is highest. Operators elsewhere only take
  * vacuum from this pipe, so they are left closed. Pipes whose strongest
- * served inlets are the same share one solve.
+ * served inlets are the same share one solve. Lifted tools may draw past
+ * the end of the producer's curve: that case is extrapolated along the
+ * curve's last slope and flagged (`maxVelocityLimited`), not failed.
  */
 import type { AnalysisFailure, InletPoint, PipeAnalysis } from './analysis-types.js';
 import type { CaseRunner, CaseView } from './case-runner.js';
@@ -63,10 +65,14 @@ export function pipeVelocities(input: VelocityInput): { pipes: PipeAnalysis[]; f
       groups.set(key, gr);
     }
   }
-  const maxV = new Map<string, { v: number; loss: number; members: number[] }>();
+  const maxV = new Map<string, { v: number; loss: number; members: number[]; curveEnd: boolean }>();
   for (const { members, pipes: groupPipes } of groups.values()) {
     const openings = members.map((i) => ({ inlet: input.names[i]!, toolState: 'lifted' as const }));
-    const out = runner.solve(openings);
+    // Lifted tools can draw past the last point of the producer's curve. This
+    // case only bounds velocities: the producer is extrapolated along its
+    // last slope toward zero vacuum and the result flagged, not failed; the
+    // design case (tools working) is what judges the producer.
+    const out = runner.solve(openings, 'tool', undefined, false, true);
     if (!out.ok) {
       failures.push({
         stage: 'max-velocity',
@@ -78,16 +84,17 @@ export function pipeVelocities(input: VelocityInput): { pipes: PipeAnalysis[]; f
       });
       continue;
     }
+    const curveEnd = (out.view.state.limited ?? []).some((l) => l.limit === 'curve-end' && g.net.drives[l.element] === 1);
     for (const pipe of groupPipes) {
       const pt = runner.pipePoint(out.view, pipe);
-      if (pt) maxV.set(pipe, { v: pt.downstreamVelocityMPerS, loss: pt.lossPa, members });
+      if (pt) maxV.set(pipe, { v: pt.downstreamVelocityMPerS, loss: pt.lossPa, members, curveEnd });
     }
   }
 
   const result: PipeAnalysis[] = pipes.map((p) => {
     const lo = minV.get(p.name);
     const hi = maxV.get(p.name);
-    return {
+    const out: PipeAnalysis = {
       name: p.name,
       insideDiameterM: p.insideDiameterM,
       lengthM: p.lengthM,
@@ -98,6 +105,8 @@ export function pipeVelocities(input: VelocityInput): { pipes: PipeAnalysis[]; f
       maxVelocityInlets: hi ? hi.members.map((i) => input.names[i]!) : [],
       lossPa: hi ? hi.loss : null,
     };
+    if (hi?.curveEnd) out.maxVelocityLimited = 'curve-end';
+    return out;
   });
   return { pipes: result, failures };
 }

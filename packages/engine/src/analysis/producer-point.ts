@@ -52,7 +52,8 @@ export function producerPoints(runner: CaseRunner, view: CaseView): ProducerPoin
 
 export type DemandResult =
   | { ok: true; flowStdM3PerS: number; vacuumPa: number; marginFraction: number }
-  | { ok: false; reason: string };
+  /** `infeasible`: no producer vacuum gives every open tool what it needs (a shortage, not a gap in the data). */
+  | { ok: false; reason: string; infeasible?: boolean };
 
 // Stop when the least tool margin is within 1 Pa of zero (our choice) or after 40 steps.
 const MARGIN_TOLERANCE_PA = 1;
@@ -120,9 +121,11 @@ export function demandAndMargin(
     let step = Math.max(FIRST_STEP_FRACTION * ambient, ambient - start);
     for (;;) {
       const x = hi - step;
-      if (x < LOWEST_INLET_FRACTION * ambient) return { ok: false, reason: 'no producer vacuum gives every open tool the vacuum it needs' };
+      if (x < LOWEST_INLET_FRACTION * ambient) {
+        return { ok: false, infeasible: true, reason: 'no producer vacuum (down to 10 % of the air pressure) gives every open tool the vacuum it needs' };
+      }
       const f = leastMargin(x);
-      if (!f) return { ok: false, reason: 'no producer vacuum short of choking gives every open tool the vacuum it needs' };
+      if (!f) return { ok: false, infeasible: true, reason: 'no producer vacuum short of choking gives every open tool the vacuum it needs' };
       if (f.margin >= 0) {
         lo = x;
         fLo = f;

@@ -112,6 +112,7 @@ function record(input: WorstCaseInput, t: Tracker, members: number[], method: Wo
         hoseLossPa: p.hoseLossPa,
         requiredToolVacuumPa: input.required[i] ?? null,
       };
+      if (p.limited) t.best[i]!.limited = p.limited;
     }
   });
 }

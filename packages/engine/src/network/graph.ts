@@ -157,9 +157,12 @@ export function buildNetworkGraph(model: SystemModel, options: GraphOptions): Ne
     drives,
     classifyLimit: (e, limit, pa, _pb, flow) => {
       const el = topology.elements[e]!;
-      // A test orifice at sonic flow is a sound test (its flow is then fixed by
-      // the room side alone); a choked tool or pipe is reported (ENGINEERING.md).
-      if (limit === 'choked') return el.kind === 'test-orifice' ? null : 'choked';
+      // A tool or test orifice at sonic flow is a physical state: the nozzle
+      // law holds the critical flow, fixed by the room side alone (ENGINEERING.md,
+      // tool law). A test orifice so is a sound test; a choked tool is reported
+      // by the analysis as a note on its inlet and by the rule tool-choked.
+      // A pipe at isothermal choking has no physical solution: a failure.
+      if (limit === 'choked') return el.kind === 'test-orifice' || el.kind === 'tool' ? null : 'choked';
       if (limit !== 'curve-end') return null;
       if (el.kind !== 'producer') return null; // a tool past its table: extrapolated, not a failure
       const unit = producers.get(el.ref.name)!;

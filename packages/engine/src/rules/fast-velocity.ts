@@ -56,11 +56,13 @@ export const fastVelocity: Rule = {
         advice = 'No larger size of its spec brings it under the limit: limit the operators this pipe serves or use a larger spec.';
       }
       const openSet = pa.maxVelocityInlets ?? [];
+      const extrapolated =
+        pa.maxVelocityLimited === 'curve-end' ? " In this case the lifted tools draw past the end of the producer's curve, extrapolated along its last slope: the velocity is an estimate." : '';
       findings.push(
         ruleFinding(
           fastVelocity,
           { kind: 'pipe', name: pipe.name, property: 'size' },
-          `Pipe '${pipe.name}' reaches ${formatVelocity(v, units)} with ${openSet.length || 'the design'} operators open and tools lifted, above the ${formatVelocity(limit, units)} limit: loud, and debris wears through bends. ${advice}`,
+          `Pipe '${pipe.name}' reaches ${formatVelocity(v, units)} with ${openSet.length || 'the design'} operators open and tools lifted, above the ${formatVelocity(limit, units)} limit: loud, and debris wears through bends. ${advice}${extrapolated}`,
           {
             related: openSet.map((name) => ({ element: { kind: 'inlet' as const, name }, message: 'open, tool lifted, in the fastest case' })),
             ...(fix ? { fix } : {}),

@@ -24,6 +24,7 @@ import { dustNonconductive } from './dust-nonconductive.js';
 import { dustBonding } from './dust-bonding.js';
 import { dustSeparatorIndoors } from './dust-separator-indoors.js';
 import { dustMetal } from './dust-metal.js';
+import { toolChoked } from './tool-choked.js';
 
 export type { Rule, RuleInfo, RuleParameter, RuleSettings, ParameterDimension } from './rule.js';
 export type { Acceptance } from './rule-settings.js';
@@ -36,6 +37,7 @@ export const ALL_RULES: readonly Rule[] = [
   slowCarryingVelocity,
   fastVelocity,
   hoseLoss,
+  toolChoked,
   endFedHeader,
   missingCleanout,
   teeBranchEntry,

@@ -16,6 +16,9 @@ export function demandWords(p: ProducerPoint, units: 'imperial' | 'si'): string 
   return `the design case needs ${formatFlow(p.demand.flowStdM3PerS, units)} at ${formatPressure(p.demand.vacuumPa, units)}, where its curve gives ${formatFlow(curveFlow, units)} (margin ${formatPercent(p.marginFraction)})`;
 }
 
+/** Analysis stages whose cases are the design operators with tools working. */
+const DESIGN_STAGES = new Set(['single-operator', 'worst-case', 'design', 'demand']);
+
 export const producerShort: Rule = {
   code: 'producer-short',
   title: 'Producer cannot deliver the demand',
@@ -40,9 +43,12 @@ export const producerShort: Rule = {
         }),
       );
     }
-    // Cases with no operating point at all because the producer cannot reach the flow.
+    // Design cases (tools working: one operator, the worst sets, the design
+    // case, the demand search) the producer cannot serve. Other cases (named
+    // scenarios, test-orifice readings) stay unsolved cases of their own; the
+    // lifted-tool velocity case never fails this way (it is extrapolated).
     for (const f of analysis.failures ?? []) {
-      if (f.cause !== 'infeasible-demand') continue;
+      if (f.cause !== 'infeasible-demand' || !DESIGN_STAGES.has(f.stage)) continue;
       const name = f.element?.kind === 'producer' ? f.element.name : (model.producers?.[0]?.name ?? model.name);
       if (reported.has(name)) continue;
       reported.add(name);
@@ -51,7 +57,7 @@ export const producerShort: Rule = {
         ruleFinding(
           producerShort,
           { kind, name, ...(kind === 'producer' ? { property: 'model' } : {}) },
-          `${kind === 'producer' ? `Producer '${name}'` : 'The producer'} cannot deliver the demand: with ${f.openInlets.map((n) => `'${n}'`).join(', ') || 'the design inlets'} open there is no operating point (${f.message}). ${advice}`,
+          `${kind === 'producer' ? `Producer '${name}'` : 'The producer'} cannot deliver the demand: with ${f.openInlets.map((n) => `'${n}'`).join(', ') || 'the design inlets'} open ${f.stage === 'demand' ? f.message : `there is no operating point (${f.message})`}. ${advice}`,
           { related: f.openInlets.map((n) => ({ element: { kind: 'inlet' as const, name: n }, message: 'open in the case that failed' })) },
         ),
       );

@@ -388,7 +388,9 @@ function solveInner(net: SolverNetwork, active: ArrayLike<number>, options: Netw
     };
   }
   // Limits the laws report at the final point, and what each means here.
-  const classify = net.classifyLimit ?? ((e: number, limit: LawLimit) => defaultLimitCause(net, e, limit));
+  const baseClassify = net.classifyLimit ?? ((e: number, limit: LawLimit) => defaultLimitCause(net, e, limit));
+  const classify = (e: number, limit: LawLimit, pa: number, pb: number, flow: number) =>
+    options.acceptCurveEnd && limit === 'curve-end' ? null : baseClassify(e, limit, pa, pb, flow);
   for (let k = 0; k < m; k++) {
     const lim = outcome.limits[k];
     if (!lim) continue;

@@ -65,6 +65,13 @@ export interface NetworkSolveOptions {
    * anything else by Newton on node pressures; 'newton': always Newton.
    */
   method?: 'auto' | 'newton';
+  /**
+   * Accept a driving element past the end of its curve (the law extrapolates
+   * it along its last slope and the state lists it in `limited`) instead of
+   * failing the case: for cases that only bound a quantity, such as the
+   * highest velocities with tools lifted (default false).
+   */
+  acceptCurveEnd?: boolean;
 }
 
 export interface SolveFailure {

@@ -28,6 +28,12 @@ describe('fast-velocity', () => {
     expect(f[0]!.fix?.['nominalSizeM']).toBeCloseTo(4 * IN, 9);
   });
 
+  it('says when the fastest case ran past the producer curve (extrapolated, an estimate)', () => {
+    const a = analysis({ pipes: [pipeAnalysis(p, { maxVelocityMPerS: 45, minVelocityMPerS: 30, maxVelocityInlets: ['i1'], maxVelocityLimited: 'curve-end' })] });
+    expect(run(m, a)[0]!.message).toMatch(/past the end of the producer's curve.*estimate/);
+    expect(run(m, case_(45, 30))[0]!.message).not.toMatch(/producer's curve/);
+  });
+
   it('says when no size can be both quiet and fast enough to carry', () => {
     const f = run(m, case_(45, 25));
     expect(f[0]!.fix).toBeUndefined();

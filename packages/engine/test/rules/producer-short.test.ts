@@ -29,6 +29,20 @@ describe('producer-short', () => {
     expect(f.map((x) => x.element.name)).toEqual(['exh']);
     expect(f[0]!.related?.map((r) => r.element.name)).toEqual(['i1', 'i2']);
   });
+  it('a demand search that finds no vacuum meeting the need fires, worded as such', () => {
+    const a = analysis({
+      failures: [{ stage: 'demand', subject: 'exh', openInlets: ['i1', 'i2'], cause: 'infeasible-demand', element: { kind: 'producer', name: 'exh' }, message: 'no producer vacuum gives every open tool the vacuum it needs' }],
+    });
+    const f = run(m, a);
+    expect(f.map((x) => x.element.name)).toEqual(['exh']);
+    expect(f[0]!.message).toMatch(/no producer vacuum gives every open tool/);
+    expect(f[0]!.message).not.toMatch(/no operating point/);
+  });
+  it('agrees with the failure list: only design stages (tools working) fire, not scenarios or test readings', () => {
+    const failure = (stage: string) => ({ stage, subject: 's', openInlets: ['i1'], cause: 'infeasible-demand' as const, element: { kind: 'producer' as const, name: 'exh' }, message: 'past the curve' });
+    for (const stage of ['single-operator', 'worst-case', 'design', 'demand']) expect(run(m, analysis({ failures: [failure(stage)] })), stage).toHaveLength(1);
+    for (const stage of ['scenario', 'commissioning', 'max-velocity']) expect(run(m, analysis({ failures: [failure(stage)] })), stage).toEqual([]);
+  });
   it('passes a positive margin', () => {
     expect(run(m, analysis({ producers: [producerPoint('exh', { marginFraction: 0.02 })] }))).toEqual([]);
   });
