@@ -28,6 +28,7 @@ import { VacnetCodeActionProvider } from './lsp/vacnet-code-action-provider.js';
 import { VacnetConfigurationProvider } from './lsp/vacnet-configuration-provider.js';
 import { DiagnosticsPublisher } from './lsp/diagnostics-publisher.js';
 import { RuleLinks } from './lsp/rule-links.js';
+import { registerSystemRequests } from './lsp/system-requests.js';
 import { AnalysisCache } from './engine-bridge/analysis-cache.js';
 import type { ProjectSettingsCache } from './engine-bridge/project-settings-cache.js';
 import { InProcessEngineRunner, type EngineRunner } from './engine-bridge/engine-runner.js';
@@ -132,5 +133,6 @@ export function createVacnetServices(
     void Vacnet.lsp.InlayHintProvider;
     if (context.connection) Vacnet.lsp.DiagnosticsPublisher.takeOver(context.connection);
   }
+  if (live && context.connection) registerSystemRequests(context.connection, Vacnet);
   return { shared, Vacnet };
 }
