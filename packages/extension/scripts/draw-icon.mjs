@@ -1,7 +1,9 @@
 // Draws the extension icon (128x128 PNG): a plant-room producer feeding a
-// main, a riser and branches ending in inlets. Pure geometry and zlib, so the
-// icon is ours and reproducible: `node scripts/draw-icon.mjs` rewrites
-// images/icon.png byte for byte.
+// main, a riser and branches ending in inlets; and the icon of .vacnet files
+// in the explorer (32x32 PNG, the same network without the tile, in colours
+// that read on light and dark themes). Pure geometry and zlib, so the icons
+// are ours and reproducible: `node scripts/draw-icon.mjs` rewrites
+// images/icon.png and images/file-icon.png byte for byte.
 import { writeFileSync } from 'node:fs';
 import { deflateSync } from 'node:zlib';
 import { fileURLToPath } from 'node:url';
@@ -46,7 +48,7 @@ function insideTile(px, py) {
   return Math.hypot(px - cx, py - cy) <= radius;
 }
 
-/** The colour at one sample point, or null outside the tile. */
+/** The colour at one sample point of the extension icon, or null outside the tile. */
 function colourAt(px, py) {
   if (!insideTile(px, py)) return null;
   if (inlets.some(([x, y]) => Math.hypot(px - x, py - y) <= INLET_RADIUS)) return inlet;
@@ -57,15 +59,36 @@ function colourAt(px, py) {
   return background;
 }
 
-/** RGBA pixels, row by row. */
-function render() {
-  const pixels = Buffer.alloc(SIZE * SIZE * 4);
-  for (let y = 0; y < SIZE; y++) {
-    for (let x = 0; x < SIZE; x++) {
+// The file icon: the same network scaled to 32 px, pipes in a mid teal and
+// inlets in amber on a transparent ground (mid tones keep contrast on both
+// the light and the dark themes).
+const FILE_SIZE = 32;
+const FILE_SCALE = FILE_SIZE / SIZE;
+const filePipe = [33, 145, 168]; // mid teal
+const FILE_PIPE_HALF_WIDTH = 6; // in icon units: 1.5 px at 32 px
+const FILE_INLET_RADIUS = 11;
+
+/** The colour at one sample point of the file icon (coordinates in 32 px), or null where transparent. */
+function fileColourAt(px, py) {
+  const x = px / FILE_SCALE;
+  const y = py / FILE_SCALE;
+  if (inlets.some(([ix, iy]) => Math.hypot(x - ix, y - iy) <= FILE_INLET_RADIUS)) return inlet;
+  const fromProducer = Math.hypot(x - producer.x, y - producer.y);
+  if (fromProducer <= producer.outer + 2 && fromProducer > producer.inner - 1) return filePipe;
+  if (fromProducer <= producer.inner - 1) return null;
+  if (pipes.some((segment) => distanceToSegment(x, y, segment) <= FILE_PIPE_HALF_WIDTH)) return filePipe;
+  return null;
+}
+
+/** RGBA pixels, row by row, of a square image `size` wide, coloured by `colourOf`. */
+function render(size = SIZE, colourOf = colourAt) {
+  const pixels = Buffer.alloc(size * size * 4);
+  for (let y = 0; y < size; y++) {
+    for (let x = 0; x < size; x++) {
       const sum = [0, 0, 0, 0];
       for (let sy = 0; sy < SAMPLES; sy++) {
         for (let sx = 0; sx < SAMPLES; sx++) {
-          const colour = colourAt(x + (sx + 0.5) / SAMPLES, y + (sy + 0.5) / SAMPLES);
+          const colour = colourOf(x + (sx + 0.5) / SAMPLES, y + (sy + 0.5) / SAMPLES);
           if (!colour) continue;
           sum[0] += colour[0];
           sum[1] += colour[1];
@@ -74,7 +97,7 @@ function render() {
         }
       }
       const covered = sum[3] / 255;
-      const at = (y * SIZE + x) * 4;
+      const at = (y * size + x) * 4;
       for (let c = 0; c < 3; c++) pixels[at + c] = covered ? Math.round(sum[c] / covered) : 0;
       pixels[at + 3] = Math.round(sum[3] / (SAMPLES * SAMPLES));
     }
@@ -103,18 +126,17 @@ function chunk(type, data) {
   return Buffer.concat([length, body, crc]);
 }
 
-/** The icon as PNG file bytes (8-bit RGBA, no interlace). */
-export function drawIcon() {
-  const pixels = render();
+/** RGBA pixels as PNG file bytes (8-bit RGBA, no interlace). */
+function png(size, pixels) {
   const header = Buffer.alloc(13);
-  header.writeUInt32BE(SIZE, 0);
-  header.writeUInt32BE(SIZE, 4);
+  header.writeUInt32BE(size, 0);
+  header.writeUInt32BE(size, 4);
   header[8] = 8; // bit depth
   header[9] = 6; // colour type: RGBA
-  const rows = Buffer.alloc(SIZE * (SIZE * 4 + 1));
-  for (let y = 0; y < SIZE; y++) {
-    rows[y * (SIZE * 4 + 1)] = 0; // filter: none
-    pixels.copy(rows, y * (SIZE * 4 + 1) + 1, y * SIZE * 4, (y + 1) * SIZE * 4);
+  const rows = Buffer.alloc(size * (size * 4 + 1));
+  for (let y = 0; y < size; y++) {
+    rows[y * (size * 4 + 1)] = 0; // filter: none
+    pixels.copy(rows, y * (size * 4 + 1) + 1, y * size * 4, (y + 1) * size * 4);
   }
   return Buffer.concat([
     Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]),
@@ -124,6 +146,17 @@ export function drawIcon() {
   ]);
 }
 
+/** The extension icon as PNG file bytes. */
+export function drawIcon() {
+  return png(SIZE, render());
+}
+
+/** The .vacnet file icon as PNG file bytes. */
+export function drawFileIcon() {
+  return png(FILE_SIZE, render(FILE_SIZE, fileColourAt));
+}
+
 if (process.argv[1] === fileURLToPath(import.meta.url)) {
   writeFileSync(new URL('../images/icon.png', import.meta.url), drawIcon());
+  writeFileSync(new URL('../images/file-icon.png', import.meta.url), drawFileIcon());
 }

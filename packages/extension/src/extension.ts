@@ -1,16 +1,16 @@
 /**
- * The VS Code side of vacnet: a language client and nothing else. It starts
- * the bundled language server (dist/server.cjs) over IPC for .vacnet files;
- * all language logic lives in the server.
+ * The desktop entry of the extension: starts the bundled language server
+ * (dist/server.cjs) as a Node process over IPC, then the editor features
+ * every host shares (start-extension.ts). All language logic lives in the
+ * server; the bundled command line (dist/cli.mjs) runs checks and
+ * comparisons as tasks and child processes.
  */
 import * as path from 'node:path';
-import { workspace, type ExtensionContext } from 'vscode';
-import {
-  LanguageClient,
-  TransportKind,
-  type LanguageClientOptions,
-  type ServerOptions,
-} from 'vscode-languageclient/node';
+import type { ExtensionContext } from 'vscode';
+import { LanguageClient, TransportKind, type ServerOptions } from 'vscode-languageclient/node';
+import { clientOptions } from './client-options.js';
+import { startExtension } from './start-extension.js';
+import { compareWithCommitted } from './compare-command.js';
 
 let client: LanguageClient | undefined;
 
@@ -25,18 +25,13 @@ export async function activate(context: ExtensionContext): Promise<void> {
       options: { execArgv: ['--nolazy', '--inspect=6009'] },
     },
   };
-  // A catalog file changed on disk (or by git) re-checks the systems that use it.
-  const watcher = workspace.createFileSystemWatcher('**/*.vacnet');
-  context.subscriptions.push(watcher);
-  const clientOptions: LanguageClientOptions = {
-    documentSelector: [
-      { scheme: 'file', language: 'vacnet' },
-      { scheme: 'untitled', language: 'vacnet' },
-    ],
-    synchronize: { fileEvents: watcher },
-  };
-  client = new LanguageClient('vacnet', 'vacnet language server', serverOptions, clientOptions);
-  await client.start();
+  client = new LanguageClient('vacnet', 'vacnet language server', serverOptions, clientOptions(context, 'desktop'));
+  const cli = context.asAbsolutePath(path.join('dist', 'cli.mjs'));
+  await startExtension(context, client, {
+    kind: 'desktop',
+    cli,
+    compare: (document) => compareWithCommitted(context, document, cli),
+  });
 }
 
 export async function deactivate(): Promise<void> {
