@@ -10,6 +10,9 @@
 import type { SystemModel } from '../network/model.js';
 import type { BillOfMaterials } from './analysis-types.js';
 
+// The order String.prototype.localeCompare gives, from one collator made once (localeCompare builds one per call).
+const TEXT_ORDER = new Intl.Collator();
+
 // Angles group to 1e-4 rad (0.006 deg) and radius ratios to 0.01 (our choice: written values repeat exactly).
 const ANGLE_KEY_DIGITS = 4;
 
@@ -76,10 +79,10 @@ export function billOfMaterials(model: SystemModel, operators: number): BillOfMa
   const models = <T extends { model: { name: string } }>(units: T[]) =>
     perKind(units, (u) => u.model.name).map(({ item, count }) => ({ model: item.model.name, count }));
   const byName = (a: { spec: string; nominalSizeM: number }, b: { spec: string; nominalSizeM: number }) =>
-    a.spec.localeCompare(b.spec) || a.nominalSizeM - b.nominalSizeM;
+    TEXT_ORDER.compare(a.spec, b.spec) || a.nominalSizeM - b.nominalSizeM;
   return {
     pipes: [...pipes.values()].sort(byName),
-    fittings: [...fittings.values()].sort((a, b) => a.kind.localeCompare(b.kind) || byName(a, b) || (a.angleRad ?? 0) - (b.angleRad ?? 0)),
+    fittings: [...fittings.values()].sort((a, b) => TEXT_ORDER.compare(a.kind, b.kind) || byName(a, b) || (a.angleRad ?? 0) - (b.angleRad ?? 0)),
     inlets: inlets.length,
     cleanouts: (model.cleanouts ?? []).length,
     hoses,
