@@ -165,7 +165,12 @@ function designBasisHtml(r: ReportModel): string {
 function curveHtml(r: ReportModel): string {
   const plot = r.curve;
   if (!plot) return `<div class="vn-note-box">${e(r.curveNote ?? 'No producer curve to plot.')}</div>`;
-  const svg = renderProducerCurveSvg(plot, r.units);
+  let svg: string;
+  try {
+    svg = renderProducerCurveSvg(plot, r.units);
+  } catch (error) {
+    return `<div class="vn-note-box">The producer curve could not be drawn: ${e(error instanceof Error ? error.message : String(error))}</div>`;
+  }
   const notes = [plot.demandCurveNote];
   if (plot.flowBasisNote) notes.push(plot.flowBasisNote);
   if (plot.exhaust) notes.push('The dotted line is the curve less the loss of the exhaust line, the vacuum the producer can hold at its inlet; the operating point lies on it.');
@@ -219,7 +224,7 @@ function inletsHtml(r: ReportModel): string {
         `<tr class="${i.critical ? 'vn-row-critical' : ''}" data-inlet="${e(i.name)}">` +
         `<td><strong>${e(i.name)}</strong>${i.room ? `<span class="vn-sub">${e(i.room)}</span>` : ''}${i.kit ? `<span class="vn-sub">${e(i.kit)}</span>` : ''}</td>` +
         `<td class="vn-num"><strong>${e(i.toolVacuum)}</strong></td><td class="vn-num">${e(i.need)}</td>` +
-        `<td>${bandBadge(i.band)}<span class="vn-sub vn-nowrap">${e(i.margin)}</span></td>` +
+        `<td>${bandBadge(i.band)}<span class="vn-sub">${e(i.margin)}</span></td>` +
         `<td class="vn-num">${e(i.flow)}</td><td class="vn-num">${e(i.toolAirPower)}</td><td class="vn-num">${e(i.inletVacuum)}</td><td class="vn-num">${e(i.hoseLoss)}</td>` +
         `<td>${i.others.length > 0 ? e(i.others.join(', ')) : '<span class="vn-muted">alone</span>'}</td><td class="vn-small">${e(i.method)}</td></tr>`,
     )
@@ -227,8 +232,8 @@ function inletsHtml(r: ReportModel): string {
   return (
     `<p class="vn-small vn-muted">For each inlet, the set of ${r.summary.operators ?? 'design'} operators (tools working) that leaves its own tool the least vacuum. The critical inlet of the design case is marked at the left edge.</p>` +
     '<div class="vn-table-wrap"><table class="vn-inlets"><thead><tr>' +
-    '<th scope="col" class="vn-name-col">Inlet</th><th scope="col" class="vn-num">Vacuum at the tool</th><th scope="col" class="vn-num">Tool needs</th><th scope="col">Margin</th>' +
-    '<th scope="col" class="vn-num">Flow</th><th scope="col" class="vn-num">Air power at the tool</th><th scope="col" class="vn-num">Vacuum at the valve</th><th scope="col" class="vn-num">Hose loss</th>' +
+    '<th scope="col" class="vn-name-col">Inlet</th><th scope="col" class="vn-num">Tool vacuum</th><th scope="col" class="vn-num">Tool needs</th><th scope="col">Margin</th>' +
+    '<th scope="col" class="vn-num">Flow</th><th scope="col" class="vn-num">Air power at tool</th><th scope="col" class="vn-num">Valve vacuum</th><th scope="col" class="vn-num">Hose loss</th>' +
     '<th scope="col" class="vn-set-col">Also open</th><th scope="col">Search</th>' +
     `</tr></thead><tbody>${rows}</tbody></table></div>`
   );
@@ -252,7 +257,7 @@ function pipesHtml(r: ReportModel): string {
     'Highest velocity and loss: the design operators at the served inlets that draw most, tools lifted, at the producer end (the noise and wear check).</p>' +
     '<div class="vn-table-wrap"><table class="vn-pipes"><thead><tr>' +
     '<th scope="col" class="vn-name-col">Pipe</th><th scope="col">Spec</th><th scope="col" class="vn-num">Size</th><th scope="col" class="vn-num">Length</th><th scope="col">Run</th>' +
-    '<th scope="col" class="vn-num">Lowest velocity, one operator</th><th scope="col" class="vn-num">Highest velocity, tools lifted</th><th scope="col" class="vn-num">Loss at highest flow</th>' +
+    '<th scope="col" class="vn-num">Lowest velocity, one operator</th><th scope="col" class="vn-num">Highest velocity, tools lifted</th><th scope="col" class="vn-num">Loss, highest flow</th>' +
     `</tr></thead><tbody>${rows}</tbody></table></div>`
   );
 }

@@ -211,7 +211,7 @@ figure.vn-figure figcaption strong { color: var(--vn-fg); }
 
 footer.vn-footer { margin-top: 40px; padding-top: 10px; border-top: 1px solid var(--vn-border); font-size: 12px; color: var(--vn-muted); display: flex; justify-content: space-between; gap: 16px; flex-wrap: wrap; }
 
-@media (max-width: 760px) {
+@media screen and (max-width: 760px) {
   .vn-report { padding: 16px; }
   .vn-title-block { grid-template-columns: 1fr 1fr; }
   .vn-title-main { grid-column: 1 / 3; border-right: 0; }
@@ -219,7 +219,12 @@ footer.vn-footer { margin-top: 40px; padding-top: 10px; border-top: 1px solid va
 }
 
 @page { size: auto; margin: 14mm 12mm 16mm; }
+/* The widest tables print across the page: landscape on the paper the reader chose (A4 or Letter). */
+@page vn-wide { size: landscape; }
 @media print {
+  #inlets, #pipes { page: vn-wide; }
+  .vn-name-col { min-width: 8em; }
+  .vn-set-col { min-width: 5em; }
   :root {${PRINT} }
   body { font-size: 10pt; }
   .vn-report { max-width: none; padding: 0; }
@@ -227,7 +232,18 @@ footer.vn-footer { margin-top: 40px; padding-top: 10px; border-top: 1px solid va
   h3 { break-after: avoid; }
   .vn-break-before { break-before: page; }
   figure.vn-figure, .vn-figures, .vn-caution, .vn-title-block { break-inside: avoid; }
-  table { font-size: 8.5pt; }
+  table { font-size: 8pt; }
+  th, td { padding: 3px 5px; }
+  td .vn-sub, td.vn-small, .vn-band, .vn-severity { font-size: 7pt; }
+  table.vn-kv { font-size: 9pt; }
+  .vn-kv th { font-size: 9pt; }
+  .vn-kv td .vn-note { font-size: 8pt; }
+  .vn-figures { grid-template-columns: repeat(5, minmax(0, 1fr)); gap: 8px; }
+  .vn-figure-card { padding: 8px 10px; }
+  .vn-figure-value { font-size: 15pt; }
+  .vn-figure-note { font-size: 8pt; }
+  /* A figure is not split across pages: a tall one is scaled to fit one (its aspect kept). */
+  figure.vn-figure svg { width: auto; max-width: 100%; max-height: 225mm; }
   thead { display: table-header-group; }
   tr { break-inside: avoid; }
   .vn-table-wrap { overflow: visible; }

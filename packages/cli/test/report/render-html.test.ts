@@ -1,5 +1,7 @@
 import { createHash } from 'node:crypto';
-import { readFileSync } from 'node:fs';
+import { readdirSync, readFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { loadDocuments } from '@vacnet/language';
 import { describe, expect, it } from 'vitest';
 import { renderReportHtml } from '../../src/report/report-api.js';
 import { REPORT_STYLE } from '../../src/report/report-style.js';
@@ -86,5 +88,27 @@ describe('renderReportHtml', () => {
     expect(html).toContain('<tr data-code="unresolved-reference"><td><span class="vn-severity vn-severity-error">error</span>');
     expect(html).toContain('The airflow analysis runs once the errors listed under Findings are fixed');
     expect(html.match(/<svg /g)).toHaveLength(1); // the schematic, without results
+  });
+});
+
+describe('renderReportHtml on every file with structural errors', () => {
+  // examples/invalid: one file per structural finding. Bad input never throws and never prints NaN.
+  const folder = new URL('../../../../examples/invalid/', import.meta.url);
+  const files = readdirSync(folder).filter((f) => f.endsWith('.vacnet')).sort();
+
+  it('there are such files to try', () => {
+    expect(files.length).toBeGreaterThan(10);
+  });
+
+  it.each(files)('%s: a report with its findings, no NaN, no undefined', async (name) => {
+    const loaded = await loadDocuments([fileURLToPath(new URL(name, folder))], { analyse: true });
+    const file = loaded.files[0]!;
+    const html = await renderReportHtml(
+      { path: `examples/invalid/${name}`, diagnostics: file.diagnostics, ...(file.model ? { model: file.model } : {}), ...(file.analysis ? { analysis: file.analysis } : {}) },
+      { generatedAt: AT },
+    );
+    expect(html).toMatch(/<\/html>\n$/);
+    expect(html).not.toMatch(/\bNaN\b|\bundefined\b|Infinity/);
+    for (const d of file.diagnostics.filter((x) => x.severity === 'error')) expect(html).toContain(`data-code="${d.code}"`);
   });
 });

@@ -20,6 +20,7 @@ const HEIGHT = 440;
 const PLOT = { left: 72, right: WIDTH - 18, top: 18, bottom: HEIGHT - 58 };
 // Samples of the system demand curve between its solved points (our choice: smooth at this size).
 const DEMAND_SAMPLES = 80;
+// Line pitch of the callouts in px, for 11 px text (our choice).
 const LINE_HEIGHT = 14;
 
 /**
@@ -264,6 +265,7 @@ function legendSymbol(kind: string, x: number, y: number): string {
 
 /** Candidate corners for a callout of this size around its anchor, the preferred side first. */
 function candidatesAround(a: Point, w: number, h: number, prefer: 'right-up' | 'left-down' | 'below' | 'right'): Point[] {
+  // 10 px from the anchor, then 30 px across and 26 px up or down with a leader line (our choices).
   const gap = 10;
   const rightUp = { x: a.x + gap, y: a.y - h - gap / 2 };
   const rightDown = { x: a.x + gap, y: a.y + gap / 2 };
