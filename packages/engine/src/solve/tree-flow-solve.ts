@@ -203,7 +203,12 @@ export class TreeFlowSolver {
         }
         if (!(pressure > 0) || pressure > ceiling) return false;
         p[i] = pressure;
-        for (let j = 0; j < k; j++) dp[i * k + j] = dDown * dp[u * k + j]! + (isBelow(i, j) ? dFlow : 0);
+        if (words === 1) {
+          const bits = below[i]!;
+          for (let j = 0; j < k; j++) dp[i * k + j] = dDown * dp[u * k + j]! + ((bits >>> j) & 1 ? dFlow : 0);
+        } else {
+          for (let j = 0; j < k; j++) dp[i * k + j] = dDown * dp[u * k + j]! + (isBelow(i, j) ? dFlow : 0);
+        }
       }
       for (let j = 0; j < k; j++) {
         const s = c.entrySlot[j]!;
