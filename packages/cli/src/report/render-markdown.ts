@@ -85,8 +85,12 @@ export async function renderReportModelMarkdown(r: ReportModel, options: Markdow
   h2('Network schematic');
   if (r.schematic && options.figureStem) {
     const fileName = `${options.figureStem}.schematic.svg`;
-    figures.push({ fileName, svg: await renderSchematicSvg(r.schematic, { standalone: true }) });
-    out.push(`![Network schematic: each inlet with its worst-case vacuum at the tool and its margin on need](${encodeURI(fileName)})`);
+    try {
+      figures.push({ fileName, svg: await renderSchematicSvg(r.schematic, { standalone: true }) });
+      out.push(`![Network schematic: each inlet with its worst-case vacuum at the tool and its margin on need](${encodeURI(fileName)})`);
+    } catch (error) {
+      out.push(`_The schematic could not be laid out: ${error instanceof Error ? error.message : String(error)}_`);
+    }
   } else out.push(r.schematic ? '_The schematic is in the HTML report; written to a file, the Markdown report links it as an SVG beside it._' : `_${r.analysisNote ?? 'No schematic.'}_`);
 
   h2('Inlets in their worst case');
