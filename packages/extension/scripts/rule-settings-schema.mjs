@@ -1,16 +1,23 @@
-// The JSON schema of the `vacnet.rules` setting, made from the engine's rule
-// table (every code, its default severity, each parameter with its default,
-// source and sane range), so the Settings editor offers exactly what the
-// language server reads (packages/language/src/engine-bridge/
-// workspace-settings.ts) and the two cannot drift apart: the manifest test
-// compares package.json with this. `node scripts/rule-settings-schema.mjs`
-// (after `npm run build`) writes it into package.json.
-import { readFileSync, writeFileSync } from 'node:fs';
+// JSON schemas made from the engine's rule table (every code, its default
+// severity, each parameter with its default, source and sane range):
+//  - the `vacnet.rules` setting, so the Settings editor offers exactly what
+//    the language server reads (packages/language/src/engine-bridge/
+//    workspace-settings.ts);
+//  - the project settings file `vacnet.json` (docs/settings.md), for the
+//    editor's JSON validation and completion.
+// The tests compare the committed files with these, so they cannot drift
+// from the engine. `node scripts/rule-settings-schema.mjs` (after
+// `npx tsc -b packages/engine`) writes both: package.json and
+// schemas/vacnet.schema.json.
+import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 
 /** Severities an editor setting may give; `off` needs a written reason, so only a file can say it. */
 const SEVERITIES = ['error', 'warning', 'info'];
 const UNIT_EXAMPLE = { velocity: 'fpm', pressure: 'inHg', length: 'ft', angle: 'deg' };
+
+/** Where the project settings schema is written, relative to the extension folder. */
+export const PROJECT_SCHEMA_FILE = 'schemas/vacnet.schema.json';
 
 /** `minVelocity` -> `min-velocity`, as files write parameters. */
 const kebab = (name) => name.replace(/[A-Z]/g, (c) => '-' + c.toLowerCase());
@@ -84,6 +91,53 @@ export function ruleSettingsSchema(rules, formatQuantity) {
   };
 }
 
+/**
+ * The schema of a project settings file, vacnet.json (docs/settings.md):
+ * display units, rules by code (a severity, `off` with its reason, the
+ * parameters as in the setting above) and which hints show.
+ */
+export function projectSettingsSchema(rules, formatQuantity) {
+  const editor = ruleSettingsSchema(rules, formatQuantity);
+  const ruleSchemas = {};
+  for (const [code, rule] of Object.entries(editor.properties)) {
+    const { severity, ...parameters } = rule.properties;
+    ruleSchemas[code] = {
+      ...rule,
+      properties: {
+        severity: {
+          type: 'string',
+          enum: [...SEVERITIES, 'off'],
+          markdownDescription: `Severity of \`${code}\` findings; \`"off"\` drops them and needs \`"because"\`.`,
+        },
+        because: { type: 'string', minLength: 1, markdownDescription: 'Why the rule is off: reviewers read it in the file\'s history.' },
+        ...parameters,
+      },
+      // `"off"` needs a written reason.
+      if: { properties: { severity: { const: 'off' } }, required: ['severity'] },
+      then: { required: ['because'] },
+    };
+  }
+  const hint = (what) => ({ type: 'boolean', default: true, markdownDescription: `Show ${what} beside the text in the editor.` });
+  return {
+    $schema: 'http://json-schema.org/draft-07/schema#',
+    title: 'vacnet project settings (vacnet.json)',
+    markdownDescription: 'Display units, rule severities and thresholds, and hints for every system in the folders below this file. Settings written in a .vacnet file win over these.',
+    type: 'object',
+    properties: {
+      displayUnits: { type: 'string', enum: ['imperial', 'si'], markdownDescription: 'Units of results for systems whose file has no `units` line.' },
+      rules: { type: 'object', markdownDescription: 'Rule severities and thresholds by rule code, as `rule` lines in a file set them.', properties: ruleSchemas, additionalProperties: false },
+      hints: {
+        markdownDescription: 'Which computed results the editor shows beside the text; `false` for none.',
+        oneOf: [
+          { type: 'boolean' },
+          { type: 'object', properties: { inlets: hint("each inlet's vacuum at the tool and flow"), pipes: hint("each pipe's lowest velocity"), producer: hint("the producer's operating point and margin") }, additionalProperties: false },
+        ],
+      },
+    },
+    additionalProperties: false,
+  };
+}
+
 if (process.argv[1] === fileURLToPath(import.meta.url)) {
   const engine = await import(new URL('../../engine/dist/index.js', import.meta.url).href);
   const manifestFile = new URL('../package.json', import.meta.url);
@@ -91,4 +145,7 @@ if (process.argv[1] === fileURLToPath(import.meta.url)) {
   manifest.contributes.configuration.properties['vacnet.rules'] = ruleSettingsSchema(engine.RULES, engine.formatQuantity);
   writeFileSync(manifestFile, JSON.stringify(manifest, null, 2) + '\n');
   console.log('rule-settings-schema: wrote contributes.configuration.properties["vacnet.rules"] in packages/extension/package.json');
+  mkdirSync(new URL('../schemas/', import.meta.url), { recursive: true });
+  writeFileSync(new URL(`../${PROJECT_SCHEMA_FILE}`, import.meta.url), JSON.stringify(projectSettingsSchema(engine.RULES, engine.formatQuantity), null, 2) + '\n');
+  console.log(`rule-settings-schema: wrote packages/extension/${PROJECT_SCHEMA_FILE}`);
 }

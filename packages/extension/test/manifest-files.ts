@@ -7,6 +7,7 @@ export interface ManifestFiles {
     languages: { configuration: string; icon: { light: string; dark: string } }[];
     grammars: { path: string }[];
     snippets: { path: string }[];
+    jsonValidation: { url: string }[];
     walkthroughs: { steps: { media: { markdown?: string; image?: string } }[] }[];
   };
 }
@@ -21,6 +22,7 @@ export function referencedFiles(m: ManifestFiles): string[] {
     ...c.languages.flatMap((l) => [l.configuration, l.icon.light, l.icon.dark]),
     ...c.grammars.map((g) => g.path),
     ...c.snippets.map((s) => s.path),
+    ...c.jsonValidation.map((v) => v.url),
     ...c.walkthroughs.flatMap((w) => w.steps.map((s) => s.media.markdown ?? s.media.image ?? '')),
     'README.md',
     'LICENSE',
