@@ -6,6 +6,8 @@ import { StructureCodes } from './codes.js';
 
 /** A rule line, threshold or acceptance must name a rule (and parameter) that exists. */
 export function checkRuleReference(line: RuleLine | Threshold | Accept, accept: ValidationAcceptor): void {
+  // A line cut before its code (mid-edit) is the parser's syntax error already.
+  if (!line.rule) return;
   const rule = findRule(line.rule);
   if (!rule) {
     accept('warning', `There is no design rule '${line.rule}'. Design rules: ${ALL_RULES.map((r) => r.code).join(', ')}.`, {

@@ -176,7 +176,8 @@ export class VacnetValidator {
 
   checkAccept = (accepted: Accept, accept: ValidationAcceptor): void => {
     checkRuleReference(accepted, accept);
-    if (!accepted.reason || unquote(accepted.reason).trim() === '') {
+    // Without its code (cut mid-edit) the line is the parser's syntax error already.
+    if (accepted.rule && (!accepted.reason || unquote(accepted.reason).trim() === '')) {
       accept('error', `Accepting '${accepted.rule}' needs a written reason: accept ${accepted.rule} because "...".`, {
         node: accepted,
         code: StructureCodes.suppressionWithoutReason,
@@ -187,7 +188,7 @@ export class VacnetValidator {
 
   checkRuleLine = (line: RuleLine, accept: ValidationAcceptor): void => {
     checkRuleReference(line, accept);
-    if (line.off && (!line.reason || unquote(line.reason).trim() === '')) {
+    if (line.rule && line.off && (!line.reason || unquote(line.reason).trim() === '')) {
       accept('error', `Turning '${line.rule}' off needs a written reason: rule ${line.rule} off because "...".`, {
         node: line,
         keyword: 'off',

@@ -30,7 +30,30 @@ system "Cut" {
 `,
 };
 
+/** Files whose diagnostics must not show a value the program never had (`undefined` in a message). */
+const MESSAGE_CASES: Record<string, string> = {
+  // Found by `npm run fuzz -- --edits 10000 --seed 42`: `accept` cut before its code gave
+  // "Accepting 'undefined' needs a written reason: accept undefined because ...".
+  'an accept cut before its code': `${CATALOG}
+system "Cut" {
+  plant pr { producer exh-7  separator cyc }
+  pipe main-1 from pr to j-1 spec steel-10 size 2 in length 40 ft horizontal accept
+  inlet A1 on main-1 at 20 ft hose std-50 tool carpet
+}
+`,
+};
+
 describe('regressions found by fuzzing', () => {
+  for (const [name, text] of Object.entries(MESSAGE_CASES)) {
+    it(`${name}: no message names an undefined value`, async () => {
+      const live = createLive();
+      const [document] = await live.put({ 'file:///work/fuzz/message.vacnet': text });
+      const messages = (document!.diagnostics ?? []).map((d) => d.message);
+      expect(messages.length).toBeGreaterThan(0);
+      expect(messages.filter((m) => /\bundefined\b/.test(m))).toEqual([]);
+    });
+  }
+
   for (const [name, text] of Object.entries(CASES)) {
     it(`${name}: loads, lowers and analyses without throwing`, async () => {
       const live = createLive();
