@@ -5,6 +5,7 @@ import { createConnection, ProposedFeatures } from 'vscode-languageserver/node';
 import { createVacnetServices } from './vacnet-module.js';
 import { WorkerEngineRunner } from './engine-bridge/worker-engine-runner.js';
 import { ProjectSettingsCache } from './engine-bridge/project-settings-cache.js';
+import { idleCollector } from './idle-collection.js';
 
 /**
  * Starts the language server on the transport given on the command line.
@@ -27,6 +28,10 @@ export function startServer(entry: string | undefined): void {
     if (!state) return null;
     const published = Vacnet.lsp.DiagnosticsPublisher.hasPublishedFinal(params.uri as string);
     return { status: state.status, version: state.version, published, engineMs: state.engineMs ?? null };
+  });
+  const collector = idleCollector();
+  Vacnet.engine.AnalysisCache.onDidChange((state) => {
+    if (state.status !== 'pending') collector.activity();
   });
   startLanguageServer(shared);
 }
