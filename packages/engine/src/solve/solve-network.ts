@@ -58,6 +58,26 @@ interface Workspace {
   localOf: Int32Array;
   /** Fixed pressure of a node in the current solve (NaN when free). */
   fixedAt: Float64Array;
+  /** Scratch arrays of the setup, sized to the network (views of the first entries are used). */
+  scratch: Map<string, Int32Array | Uint8Array | Float64Array>;
+}
+
+/** A scratch array of the workspace, at least `length` long, its first `length` entries set to `fill`. */
+function scratchOf<T extends Int32Array | Uint8Array | Float64Array>(
+  ws: Workspace,
+  name: string,
+  make: new (length: number) => T,
+  length: number,
+  fill: number,
+): T {
+  let a = ws.scratch.get(name) as T | undefined;
+  if (!a || a.length < length) {
+    a = new make(Math.max(length, 16));
+    ws.scratch.set(name, a);
+  }
+  const view = a.subarray(0, length) as T;
+  view.fill(fill);
+  return view;
 }
 
 const workspaces = new WeakMap<SolverNetwork, Workspace>();
@@ -72,6 +92,7 @@ function workspaceOf(net: SolverNetwork): Workspace {
       nodeStamp: new Int32Array(net.nodeCount),
       localOf: new Int32Array(net.nodeCount),
       fixedAt: new Float64Array(net.nodeCount),
+      scratch: new Map(),
     };
     workspaces.set(net, ws);
   }
@@ -146,33 +167,38 @@ function solveInner(net: SolverNetwork, active: ArrayLike<number>, options: Netw
     touch(elementB[e]!);
   }
   const nodeCount = globalList.length;
-  const globalNodes = Int32Array.from(globalList);
-  const degree = Int32Array.from(degreeList);
+  const globalNodes = scratchOf(ws, 'globalNodes', Int32Array, nodeCount, 0);
+  const degree = scratchOf(ws, 'degree', Int32Array, nodeCount, 0);
+  for (let v = 0; v < nodeCount; v++) {
+    globalNodes[v] = globalList[v]!;
+    degree[v] = degreeList[v]!;
+  }
   // Local ends of each case element (-1: fixed).
-  const endA = new Int32Array(elemCount);
-  const endB = new Int32Array(elemCount);
+  const endA = scratchOf(ws, 'endA', Int32Array, elemCount, 0);
+  const endB = scratchOf(ws, 'endB', Int32Array, elemCount, 0);
   for (let k = 0; k < elemCount; k++) {
     const e = elems[k]!;
     endA[k] = localOf[elementA[e]!]!;
     endB[k] = localOf[elementB[e]!]!;
   }
   // Incidence lists (CSR) of free nodes.
-  const incStart = new Int32Array(nodeCount + 1);
+  const incStart = scratchOf(ws, 'incStart', Int32Array, nodeCount + 1, 0);
   for (let k = 0; k < elemCount; k++) {
     if (endA[k]! >= 0) incStart[endA[k]! + 1]!++;
     if (endB[k]! >= 0) incStart[endB[k]! + 1]!++;
   }
   for (let i = 0; i < nodeCount; i++) incStart[i + 1] = incStart[i + 1]! + incStart[i]!;
-  const incPos = incStart.slice(0, nodeCount);
-  const incElem = new Int32Array(incStart[nodeCount]!);
+  const incPos = scratchOf(ws, 'incPos', Int32Array, nodeCount, 0);
+  incPos.set(incStart.subarray(0, nodeCount));
+  const incElem = scratchOf(ws, 'incElem', Int32Array, incStart[nodeCount]!, 0);
   for (let k = 0; k < elemCount; k++) {
     if (endA[k]! >= 0) incElem[incPos[endA[k]!]!++] = k;
     if (endB[k]! >= 0) incElem[incPos[endB[k]!]!++] = k;
   }
 
   // --- prune dead legs: a free node with one element, to another free node
-  const removedElem = new Uint8Array(elemCount);
-  const removedNode = new Uint8Array(nodeCount);
+  const removedElem = scratchOf(ws, 'removedElem', Uint8Array, elemCount, 0);
+  const removedNode = scratchOf(ws, 'removedNode', Uint8Array, nodeCount, 0);
   const prunedNode: number[] = [];
   const prunedVia: number[] = [];
   if (options.prune !== false) {
@@ -202,7 +228,7 @@ function solveInner(net: SolverNetwork, active: ArrayLike<number>, options: Netw
   }
 
   // --- components of the remaining free nodes; each must be able to move air
-  const comp = new Int32Array(nodeCount).fill(-1);
+  const comp = scratchOf(ws, 'comp', Int32Array, nodeCount, -1);
   const compDrives: boolean[] = [];
   const compFixedMin: number[] = [];
   const compFixedMax: number[] = [];
@@ -265,7 +291,7 @@ function solveInner(net: SolverNetwork, active: ArrayLike<number>, options: Netw
   }
 
   // --- local system
-  const freeIndex = new Int32Array(nodeCount).fill(-1);
+  const freeIndex = scratchOf(ws, 'freeIndex', Int32Array, nodeCount, -1);
   const freeGlobalList: number[] = [];
   for (let v = 0; v < nodeCount; v++) {
     if (removedNode[v] || !keepComp[comp[v]!]) continue;
@@ -353,7 +379,7 @@ function solveInner(net: SolverNetwork, active: ArrayLike<number>, options: Netw
   stateNodes.set(freeGlobal);
   statePressures.set(p.subarray(0, n));
   // Pressure of a free local node: its solved value, or (pruned) the value it was given.
-  const localPressure = new Float64Array(nodeCount).fill(NaN);
+  const localPressure = scratchOf(ws, 'localPressure', Float64Array, nodeCount, NaN);
   for (let v = 0; v < nodeCount; v++) if (freeIndex[v]! >= 0) localPressure[v] = p[freeIndex[v]!]!;
   for (let r = prunedCount - 1, at = n; r >= 0; r--, at++) {
     const node = prunedNode[r]!;
