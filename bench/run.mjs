@@ -15,6 +15,7 @@ const GROUPS = {
   parse: './parse.mjs',
   cli: './cli-start.mjs',
   lsp: './lsp-session.mjs',
+  engine: './engine.mjs',
 };
 
 const resultsFile = new URL('./results.json', import.meta.url);
