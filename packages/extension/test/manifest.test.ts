@@ -52,6 +52,7 @@ interface Manifest {
     languages: { id: string; aliases: string[]; extensions: string[]; configuration: string; icon: { light: string; dark: string } }[];
     grammars: { language: string; scopeName: string; path: string }[];
     snippets: { language: string; path: string }[];
+    jsonValidation: { fileMatch: string; url: string }[];
     commands: Command[];
     menus: Record<string, { command: string; when?: string }[]>;
     configuration: { title: string; properties: Record<string, SettingSchema> };
@@ -100,6 +101,12 @@ describe('manifest', () => {
     // The generated grammar must carry the scope name the manifest announces.
     expect(readJson(at(grammar!.path)).scopeName).toBe(grammar!.scopeName);
     expect(manifest.contributes.snippets).toEqual([{ language: 'vacnet', path: './snippets/vacnet.json' }]);
+  });
+
+  it('validates project settings files (vacnet.json) with a draft-07 schema it ships', () => {
+    expect(manifest.contributes.jsonValidation).toEqual([{ fileMatch: 'vacnet.json', url: './schemas/vacnet.schema.json' }]);
+    const schema = readJson(at(manifest.contributes.jsonValidation[0]!.url));
+    expect(schema.$schema).toBe('http://json-schema.org/draft-07/schema#');
   });
 
   it('references only files that exist', () => {

@@ -1,4 +1,4 @@
-import { URI } from 'langium';
+import { DocumentState, URI } from 'langium';
 import type { LangiumServices } from 'langium/lsp';
 import type { Connection, Diagnostic, DiagnosticRelatedInformation, PublishDiagnosticsParams } from 'vscode-languageserver';
 import type { VacnetDiagnostic } from '../diagnostic.js';
@@ -105,7 +105,10 @@ export class DiagnosticsPublisher {
     if (state.trigger === 'settings' && this.structural.has(state.uri)) this.structuralGeneration.set(state.uri, state.generation);
     if (state.status === 'pending') return;
     // Join Langium's diagnostics of the same build only; when they have not come yet, their arrival publishes both.
-    if (this.structuralGeneration.get(state.uri) !== state.generation) return;
+    if (this.structuralGeneration.get(state.uri) !== state.generation) {
+      this.adoptIfNeverSent(state);
+      return;
+    }
     const timer = this.grace.get(state.uri);
     if (timer) {
       clearTimeout(timer);
@@ -115,6 +118,27 @@ export class DiagnosticsPublisher {
     if (state.status === 'ready' && this.inlayHintRefresh) {
       void this.services.shared.lsp.Connection?.languages.inlayHint.refresh().catch(() => undefined);
     }
+  }
+
+  /**
+   * Langium skips its own publication of a validated document when the build
+   * is cancelled between the document's listeners (a new edit or file
+   * arriving), and the document, already validated, is not published again.
+   * When Langium's diagnostics of a settled analysis's build have not come
+   * within the grace, they are taken from the document itself, so a document
+   * is never left without its diagnostics.
+   */
+  private adoptIfNeverSent(settled: DocumentAnalysis): void {
+    const uri = settled.uri;
+    setTimeout(() => {
+      const state = this.cache.state(uri);
+      if (!state || state.generation !== settled.generation || this.structuralGeneration.get(uri) === state.generation) return;
+      const document = this.services.shared.workspace.LangiumDocuments.getDocument(URI.parse(uri));
+      if (!document || document.state < DocumentState.Validated || document.textDocument.version !== state.version) return;
+      this.structural.set(uri, document.diagnostics ?? []);
+      this.structuralGeneration.set(uri, state.generation);
+      this.publish(uri);
+    }, STRUCTURAL_GRACE_MS);
   }
 
   /**

@@ -2,15 +2,15 @@
 // but the engine runs on this thread), and helpers to open, edit and read
 // documents in them.
 import { EmptyFileSystem, TextDocument, URI, type LangiumDocument } from 'langium';
-import type { TextEdit } from 'vscode-languageserver';
+import type { Connection, TextEdit } from 'vscode-languageserver';
 import { createVacnetServices, type VacnetServiceOptions } from '../../src/vacnet-module.js';
 import type { DocumentAnalysis } from '../../src/engine-bridge/analysis-cache.js';
 import type { Document } from '../../src/generated/ast.js';
 
 export type Live = ReturnType<typeof createLive>;
 
-export function createLive(options: VacnetServiceOptions = {}) {
-  const services = createVacnetServices(EmptyFileSystem, { liveAnalysis: true, ...options });
+export function createLive(options: VacnetServiceOptions = {}, connection?: Connection) {
+  const services = createVacnetServices({ ...EmptyFileSystem, ...(connection ? { connection } : {}) }, { liveAnalysis: true, ...options });
   const { shared, Vacnet } = services;
   const documents = shared.workspace.LangiumDocuments;
   const builder = shared.workspace.DocumentBuilder;
