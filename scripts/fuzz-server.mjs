@@ -459,7 +459,7 @@ export async function runFuzz(options = {}) {
     if (/error|exception|at \S+ \(/i.test(line)) problems.push(`server stderr: ${line.slice(0, 300)}`);
   }
   connection.dispose();
-  return { problems, stats };
+  return { problems: [...problems], stats };
 }
 
 // ------------------------------------------------------------------- cli
