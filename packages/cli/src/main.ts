@@ -87,6 +87,8 @@ export async function main(argv: readonly string[], io: CommandIo = processIo())
     .argument('<file>', 'the .vacnet file of the system')
     .option('-o, --out <file>', 'write the report here (.html or .md); without it the report goes to stdout')
     .addOption(new Option('-f, --format <format>', 'report format (default: from the --out extension, else html)').choices(['html', 'markdown']))
+    .option('--settings <file>', 'use this project settings file instead of finding vacnet.json')
+    .option('--no-settings', 'use no project settings file')
     .addHelpText(
       'after',
       [
@@ -106,7 +108,7 @@ export async function main(argv: readonly string[], io: CommandIo = processIo())
         '  vacnet report plant.vacnet --out review/plant.md',
       ].join('\n'),
     )
-    .action(async (file: string, options: { out?: string; format?: 'html' | 'markdown' }) => {
+    .action(async (file: string, options: { out?: string; format?: 'html' | 'markdown'; settings?: string | boolean }) => {
       const { runReport } = await import('./commands/report.js');
       exitCode = await runReport(file, { ...options, version: readVersion() }, io);
     });

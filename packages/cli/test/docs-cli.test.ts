@@ -13,7 +13,7 @@ import { BIN, FIXTURES, REPO_ROOT, runBin } from './run-bin.js';
 
 const reference = readFileSync(join(REPO_ROOT, 'docs/cli.md'), 'utf8');
 const workflow = readFileSync(join(REPO_ROOT, 'docs/ci/vacnet-check.yml'), 'utf8');
-const COMMANDS = ['check', 'fmt', 'compare', 'init'] as const;
+const COMMANDS = ['check', 'fmt', 'compare', 'report', 'init'] as const;
 
 /** The long options `vacnet <command> --help` lists, without --help itself. */
 function helpOptions(command: string): string[] {

@@ -1,4 +1,3 @@
-import { readFile } from 'node:fs/promises';
 import { relative, resolve } from 'node:path';
 import { loadDocuments, locateElement, type LoadOptions } from '@vacnet/language';
 import { bySourcePosition, errorsOnly, hasUnreadableFile, summarise, type CheckedFile, type CheckResult } from '../check-result.js';
@@ -10,6 +9,7 @@ import { formatSarif } from '../formats/sarif.js';
 import { formatText } from '../formats/text.js';
 import type { CommandIo } from '../io.js';
 import { progressLine } from '../progress-line.js';
+import { settingsChoice } from '../settings-choice.js';
 import { RuleDocs } from '../rule-docs.js';
 import { colourWanted, palette } from '../terminal-colour.js';
 
@@ -78,18 +78,6 @@ export function checkExitCode(result: CheckResult, maxWarnings: number | undefin
   if (result.summary.errors > 0) return ExitCode.findings;
   if (maxWarnings !== undefined && result.summary.warnings > maxWarnings) return ExitCode.findings;
   return ExitCode.ok;
-}
-
-async function settingsChoice(choice: string | boolean | undefined, cwd: string): Promise<LoadOptions['settings']> {
-  if (choice === false) return undefined;
-  if (choice === undefined || choice === true) return 'discover';
-  const path = resolve(cwd, choice);
-  try {
-    return { path, text: await readFile(path, 'utf8') };
-  } catch (error) {
-    const code = (error as { code?: string }).code;
-    throw new UsageError(`${choice}: ${code === 'ENOENT' ? 'no such settings file' : `cannot be read (${error instanceof Error ? error.message : String(error)})`}`);
-  }
 }
 
 export interface CheckRunOptions {

@@ -2,6 +2,7 @@ import { writeFileSync } from 'node:fs';
 import { basename, dirname, extname, isAbsolute, join, relative, resolve, sep } from 'node:path';
 import { loadDocuments } from '@vacnet/language';
 import { ExitCode } from '../exit-codes.js';
+import { settingsChoice } from '../settings-choice.js';
 import type { CommandIo } from '../io.js';
 import { renderReportHtml, renderReportMarkdown } from '../report/report-api.js';
 import type { ReportInput } from '../report/report-model.js';
@@ -20,6 +21,8 @@ export interface ReportOptions {
   version?: string;
   /** When the report is made (default: SOURCE_DATE_EPOCH when set, else now). */
   now?: Date;
+  /** Project settings: discover vacnet.json above the file (default), use this file, or none (false); as `vacnet check`. */
+  settings?: string | boolean;
 }
 
 const FORMAT_BY_EXTENSION: Readonly<Record<string, ReportFormat>> = { '.html': 'html', '.htm': 'html', '.md': 'markdown', '.markdown': 'markdown' };
@@ -50,7 +53,8 @@ export async function runReport(file: string, options: ReportOptions, io: Comman
   const absolute = resolve(io.cwd, file);
   let input: ReportInput;
   try {
-    const loaded = await loadDocuments([absolute], { analyse: true });
+    const settings = await settingsChoice(options.settings, io.cwd);
+    const loaded = await loadDocuments([absolute], { analyse: true, ...(settings ? { settings } : {}) });
     const found = loaded.files.find((f) => resolve(f.path) === absolute) ?? loaded.files[0];
     const unreadable = found?.diagnostics.find((d) => d.code === 'file-unreadable');
     if (!found || unreadable) {

@@ -1,4 +1,4 @@
-import { cpSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { cpSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -134,6 +134,28 @@ describe('vacnet report (bin)', () => {
     expect(run.status).toBe(0);
     expect(run.stdout).toMatch(/Exit codes:[\s\S]*0 {2}report written[\s\S]*1 {2}report written, but the file has errors[\s\S]*2 {2}usage error/);
     expect(run.stdout).toContain('report.producer-curve.svg and report.schematic.svg');
+  });
+
+  it('applies the project settings vacnet check applies (vacnet.json above the file, --settings, --no-settings)', () => {
+    const folder = join(work, 'with-settings');
+    cpSync(join(REPO_ROOT, 'examples'), folder, { recursive: true });
+    // A stricter carrying velocity than any pipe of the house meets, as an error: the report must list the findings.
+    const strict = { rules: { 'slow-carrying-velocity': { severity: 'error', 'min-velocity': '9000 fpm' } } };
+    writeFileSync(join(folder, 'vacnet.json'), JSON.stringify(strict));
+    const found = runBin(['report', 'detached-house.vacnet', '--format', 'markdown'], folder, FIXED);
+    const check = runBin(['check', 'detached-house.vacnet', '--format', 'json'], folder, FIXED);
+    const errors = JSON.parse(check.stdout).files[0].diagnostics.filter((d: { severity: string }) => d.severity === 'error').length;
+    expect(errors).toBeGreaterThan(0);
+    expect(found.status).toBe(1);
+    expect(found.stdout.match(/slow-carrying-velocity/g)?.length ?? 0).toBeGreaterThanOrEqual(errors);
+    const none = runBin(['report', 'detached-house.vacnet', '--format', 'markdown', '--no-settings'], folder, FIXED);
+    expect(none.status).toBe(0);
+    writeFileSync(join(work, 'lenient.json'), '{}');
+    const given = runBin(['report', 'detached-house.vacnet', '--format', 'markdown', '--settings', join(work, 'lenient.json')], folder, FIXED);
+    expect(given.status).toBe(0);
+    const missing = runBin(['report', 'detached-house.vacnet', '--settings', join(work, 'absent.json')], folder, FIXED);
+    expect(missing.status).toBe(2);
+    expect(missing.stderr).toMatch(/absent\.json: no such settings file/);
   });
 
   it('a copied example outside the checkout reports the same numbers (no dependence on the working folder)', () => {
