@@ -27,6 +27,7 @@ import { VacnetInlayHintProvider } from './lsp/vacnet-inlay-hint-provider.js';
 import { VacnetCodeActionProvider } from './lsp/vacnet-code-action-provider.js';
 import { VacnetConfigurationProvider } from './lsp/vacnet-configuration-provider.js';
 import { DiagnosticsPublisher } from './lsp/diagnostics-publisher.js';
+import { VacnetLexerErrorMessages, VacnetSyntaxErrorMessages } from './parser/syntax-error-messages.js';
 import { RuleLinks } from './lsp/rule-links.js';
 import { registerSystemRequests } from './lsp/system-requests.js';
 import { AnalysisCache } from './engine-bridge/analysis-cache.js';
@@ -69,6 +70,10 @@ export interface VacnetServiceOptions {
 
 export function createVacnetModule(options: VacnetServiceOptions = {}): Module<VacnetServices, PartialLangiumServices & VacnetAddedServices> {
   return {
+    parser: {
+      ParserErrorMessageProvider: () => new VacnetSyntaxErrorMessages(),
+      LexerErrorMessageProvider: () => new VacnetLexerErrorMessages(),
+    },
     references: {
       ScopeComputation: (services) => new VacnetScopeComputation(services),
       ScopeProvider: (services) => new VacnetScopeProvider(services),
