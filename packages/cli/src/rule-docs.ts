@@ -1,7 +1,7 @@
-import { existsSync, readFileSync } from 'node:fs';
-import { dirname, join } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
 import { RULES } from '@vacnet/engine';
+import { findRulesFolder } from './rules-folder.js';
 
 /** A finding code's page in docs/rules, as help text for tools that show it beside the finding. */
 export interface RuleDoc {
@@ -15,9 +15,6 @@ export interface RuleDoc {
   /** The page as plain text (Markdown marks removed). */
   text: string;
 }
-
-/** How many folders up from this file to look for docs/rules (the bundle's chunks sit three below the repository root). */
-const SEARCH_DEPTH = 6;
 
 /**
  * The rule pages, read at run time from the docs/rules folder found above
@@ -75,16 +72,4 @@ function plainText(markdown: string): string {
     .replace(/`([^`\n]+)`/g, '$1')
     .replace(/^```\w*$/gm, '')
     .trim();
-}
-
-function findRulesFolder(): string | undefined {
-  let folder = dirname(fileURLToPath(import.meta.url));
-  for (let i = 0; i < SEARCH_DEPTH; i++) {
-    const candidate = join(folder, 'docs', 'rules');
-    if (existsSync(candidate)) return candidate;
-    const parent = dirname(folder);
-    if (parent === folder) break;
-    folder = parent;
-  }
-  return undefined;
 }

@@ -6,7 +6,8 @@ import { settingsChoice } from '../settings-choice.js';
 import type { CommandIo } from '../io.js';
 import { renderReportHtml, renderReportMarkdown } from '../report/report-api.js';
 import type { ReportInput } from '../report/report-model.js';
-import { findRulesFolder, readRulePages } from '../report/rule-pages.js';
+import { readRulePages } from '../report/rule-pages.js';
+import { findRulesFolder } from '../rules-folder.js';
 
 /** The formats of `vacnet report`. */
 export const REPORT_FORMATS = ['html', 'markdown'] as const;
