@@ -8,7 +8,7 @@
 import type { Finding } from '../network/model.js';
 import type { Rule } from './rule.js';
 import { ruleFinding } from './finding.js';
-import { formatDiameter, formatLength, formatPercent, formatPressure } from './rule-format.js';
+import { formatDiameter, formatLength, formatPercentApart, formatPressure } from './rule-format.js';
 
 /** Conventional inch of mercury, Pa (NIST SP 811). */
 const INHG_PA = 3386.389;
@@ -60,7 +60,8 @@ export const hoseLoss: Rule = {
       if (!worst) continue;
       const share = worst.vacuum > 0 ? worst.loss / worst.vacuum : 1;
       const hose = inlet.hose;
-      const which = worst.loss > absolute ? `more than ${formatPressure(absolute, units)}` : `more than ${formatPercent(shareLimit)} of the vacuum at the valve`;
+      const [shareText, shareLimitText] = formatPercentApart(share, shareLimit);
+      const which = worst.loss > absolute ? `more than ${formatPressure(absolute, units)}` : `more than ${shareLimitText} of the vacuum at the valve`;
       // Friction dominates: loss ~ length, and ~ bore^-5 at the same flow (Darcy-Weisbach).
       const ratio = worst.allowed > 0 ? worst.loss / worst.allowed : Number.POSITIVE_INFINITY;
       const maxLength = hose && Number.isFinite(ratio) ? hose.lengthM / ratio : undefined;
@@ -73,7 +74,7 @@ export const hoseLoss: Rule = {
         ruleFinding(
           hoseLoss,
           { kind: 'inlet', name: inlet.name, property: 'hose' },
-          `The hose at inlet '${inlet.name}'${hose ? ` ('${hose.name}', ${formatLength(hose.lengthM, units)} x ${formatDiameter(hose.boreM, units)})` : ''} loses ${formatPressure(worst.loss, units)} ${worst.label}, ${formatPercent(share)} of the ${formatPressure(worst.vacuum, units)} at the valve: ${which}. ${advice}`,
+          `The hose at inlet '${inlet.name}'${hose ? ` ('${hose.name}', ${formatLength(hose.lengthM, units)} x ${formatDiameter(hose.boreM, units)})` : ''} loses ${formatPressure(worst.loss, units)} ${worst.label}, ${shareText} of the ${formatPressure(worst.vacuum, units)} at the valve: ${which}. ${advice}`,
           {
             related: hose ? [{ element: { kind: 'hose-kind', name: hose.name }, message: 'the hose kind' }] : [],
             fix: {

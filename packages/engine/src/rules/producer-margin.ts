@@ -6,7 +6,7 @@
 import type { Finding } from '../network/model.js';
 import type { Rule } from './rule.js';
 import { ruleFinding } from './finding.js';
-import { formatPercent } from './rule-format.js';
+import { formatPercentApart } from './rule-format.js';
 import { demandWords } from './producer-short.js';
 
 export const producerMargin: Rule = {
@@ -34,11 +34,12 @@ export const producerMargin: Rule = {
       const m = p.marginFraction;
       // Below zero is producer-short's finding.
       if (m === null || m < 0 || m >= required) continue;
+      const shown = formatPercentApart(m, required);
       findings.push(
         ruleFinding(
           producerMargin,
           { kind: 'producer', name: p.name, property: 'model' },
-          `Producer '${p.name}' has ${formatPercent(m)} margin over the demand, below the ${formatPercent(required)} required: ${demandWords(p, units)}. As filters load and hoses wear it will fall short; choose the next larger producer or lower the demand.`,
+          `Producer '${p.name}' has ${shown[0]} margin over the demand, below the ${shown[1]} required: ${demandWords(p, units)}. As filters load and hoses wear it will fall short; choose the next larger producer or lower the demand.`,
           { fix: { marginFraction: m, requiredMarginFraction: required, demand: p.demand } },
         ),
       );

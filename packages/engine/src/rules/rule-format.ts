@@ -41,6 +41,18 @@ export function formatPercent(fraction: number): string {
   return `${plain(fraction * 100, 0)} %`;
 }
 
+/**
+ * Two shares as percentages with the fewest decimals (up to two) that keep
+ * them apart, so that a value just under its limit never prints as equal to
+ * it ("9.6 % margin, below the 10 % required", not "10 % ... below the 10 %").
+ */
+export function formatPercentApart(value: number, limit: number): [string, string] {
+  const MAX_DECIMALS = 2;
+  let decimals = 0;
+  while (decimals < MAX_DECIMALS && plain(value * 100, decimals) === plain(limit * 100, decimals)) decimals++;
+  return [`${plain(value * 100, decimals)} %`, `${plain(limit * 100, decimals)} %`];
+}
+
 export function formatAngle(rad: number): string {
   return `${plain((rad * 180) / Math.PI, 0)} deg`;
 }

@@ -17,6 +17,11 @@ describe('producer-margin', () => {
     expect(run(system(), at(0.12))).toEqual([]);
     expect(run(system(), at(-0.05))).toEqual([]);
   });
+  it('never prints a margin just under the limit as equal to it', () => {
+    const f = run(system(), at(0.096));
+    expect(f[0]!.message).toMatch(/has 9\.6 % margin over the demand, below the 10 % required/);
+    expect(run(system(), at(0.0999))[0]!.message).toMatch(/has 9\.99 % margin over the demand, below the 10 % required/);
+  });
   it('takes the design basis margin line, and a rule setting over it', () => {
     const m = system({ design: { areas: [], debris: 'general', producerMarginFraction: 0.03 } });
     expect(run(m, at(0.05))).toEqual([]);
