@@ -67,20 +67,10 @@ const OPERATOR_SOURCE: Record<SystemAnalysis['operators']['source'], string> = {
   default: 'none stated; one assumed',
 };
 
-/** The inlet whose tool is left with the least vacuum over what it needs (or the least vacuum). */
-function worstInlet(analysis: SystemAnalysis) {
-  let worst: SystemAnalysis['inlets'][number] | undefined;
-  let worstScore = Infinity;
-  for (const inlet of analysis.inlets) {
-    const wc = inlet.worstCase;
-    if (!wc) continue;
-    const score = wc.toolVacuumPa - (wc.requiredToolVacuumPa ?? 0);
-    if (score < worstScore) {
-      worstScore = score;
-      worst = inlet;
-    }
-  }
-  return worst;
+/** The design case's critical inlet: the one whose tool is left with the least vacuum over what it needs (the engine's choice). */
+function worstInlet(analysis: SystemAnalysis): SystemAnalysis['inlets'][number] | undefined {
+  const name = analysis.designCase?.criticalInlet;
+  return name === undefined ? undefined : analysis.inlets.find((inlet) => inlet.name === name && inlet.worstCase);
 }
 
 function percent(fraction: number): string {

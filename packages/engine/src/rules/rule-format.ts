@@ -47,7 +47,7 @@ export function formatPercent(fraction: number): string {
  * it ("9.6 % margin, below the 10 % required", not "10 % ... below the 10 %").
  */
 export function formatPercentApart(value: number, limit: number): [string, string] {
-  const MAX_DECIMALS = 2;
+  const MAX_DECIMALS = 2; // our choice: past two, the difference is below what the inputs carry
   let decimals = 0;
   while (decimals < MAX_DECIMALS && plain(value * 100, decimals) === plain(limit * 100, decimals)) decimals++;
   return [`${plain(value * 100, decimals)} %`, `${plain(limit * 100, decimals)} %`];

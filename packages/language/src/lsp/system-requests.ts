@@ -117,18 +117,8 @@ function summaryOf(state: DocumentAnalysis, diagnostics: readonly VacnetDiagnost
   return summary;
 }
 
-/** The inlet whose tool is left with the least vacuum over what it needs (else the least vacuum), as `vacnet check` names it. */
+/** The design case's critical inlet: the one whose tool is left with the least vacuum over what it needs (the engine's choice). */
 function worstInlet(analysis: SystemAnalysis): SystemAnalysis['inlets'][number] | undefined {
-  let worst: SystemAnalysis['inlets'][number] | undefined;
-  let worstScore = Number.POSITIVE_INFINITY;
-  for (const inlet of analysis.inlets) {
-    const wc = inlet.worstCase;
-    if (!wc) continue;
-    const score = wc.toolVacuumPa - (wc.requiredToolVacuumPa ?? 0);
-    if (score < worstScore) {
-      worstScore = score;
-      worst = inlet;
-    }
-  }
-  return worst;
+  const name = analysis.designCase?.criticalInlet;
+  return name === undefined ? undefined : analysis.inlets.find((inlet) => inlet.name === name && inlet.worstCase);
 }
