@@ -85,11 +85,11 @@ export class VacnetDocumentValidator extends DefaultDocumentValidator {
  */
 function firstUnreadableItemLine(document: LangiumDocument): number {
   const { lexerErrors, parserErrors } = document.parseResult;
+  if (lexerErrors.length === 0 && parserErrors.length === 0) return Infinity;
   // A token the parser made up in recovery has no offset: the error then sits after the token before it.
   const parserOffset = (e: (typeof parserErrors)[number]) =>
     Number.isFinite(e.token.startOffset) && e.token.startOffset >= 0 ? e.token.startOffset : ((e as { previousToken?: { endOffset?: number } }).previousToken?.endOffset ?? NaN);
   const offsets = [...lexerErrors.map((e) => e.offset), ...parserErrors.map(parserOffset)].filter((o) => Number.isFinite(o) && o >= 0);
-  if (lexerErrors.length === 0 && parserErrors.length === 0) return Infinity;
   if (offsets.length === 0) return 0;
   const offset = Math.min(...offsets);
   const root = document.parseResult.value.$cstNode;
