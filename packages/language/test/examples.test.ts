@@ -1,21 +1,12 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import * as path from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { loadDocuments } from '../src/document.js';
-
-const examples = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../../examples');
-
-function vacnetFilesIn(folder: string): string[] {
-  return readdirSync(folder, { withFileTypes: true }).flatMap((entry) => {
-    const full = path.join(folder, entry.name);
-    if (entry.isDirectory()) return entry.name === 'invalid' ? [] : vacnetFilesIn(full);
-    return entry.name.endsWith('.vacnet') ? [full] : [];
-  });
-}
+import { EXAMPLES_DIR as examples, vacnetFiles } from './example-files.js';
 
 describe('the bundled examples', () => {
-  const files = vacnetFilesIn(examples);
+  // The valid examples: examples/invalid holds one file per finding code, on purpose.
+  const files = vacnetFiles().filter((f) => !path.relative(examples, f).split(path.sep).includes('invalid'));
 
   it('include a catalog and at least three systems', () => {
     expect(files.length).toBeGreaterThanOrEqual(4);

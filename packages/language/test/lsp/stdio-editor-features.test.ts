@@ -3,13 +3,14 @@
 // Message shapes are those of the LSP 3.17 specification:
 // textDocument/formatting returns TextEdit[]; textDocument/documentSymbol
 // returns DocumentSymbol[] (hierarchical).
-import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
+import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { TextDocument } from 'langium';
 import type { DocumentSymbol, TextEdit } from 'vscode-languageserver';
 import { afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { initializeParams, shutdown, startStdioServer, type StdioServer } from './stdio-client.js';
+import { vacnetFiles } from '../example-files.js';
 
 const bin = fileURLToPath(new URL('../../bin/vacnet-lsp.js', import.meta.url));
 const built = fileURLToPath(new URL('../../dist/main.js', import.meta.url));
@@ -18,14 +19,6 @@ const examples = fileURLToPath(new URL('../../../../examples/', import.meta.url)
 const STARTUP_MS = 20000;
 // LSP SymbolKind (specification 3.17): Namespace 3, Module 2, Field 8, Event 24.
 const KIND = { Module: 2, Namespace: 3, Field: 8, Event: 24 } as const;
-
-function vacnetFiles(dir: string): string[] {
-  return readdirSync(dir).flatMap((entry) => {
-    const full = join(dir, entry);
-    if (statSync(full).isDirectory()) return vacnetFiles(full);
-    return entry.endsWith('.vacnet') ? [full] : [];
-  });
-}
 
 function comments(text: string): string[] {
   return (text.match(/\/\/[^\n\r]*|\/\*[\s\S]*?\*\//g) ?? []).map((c) => c.replace(/\r?\n[ \t]*/g, '\n').trimEnd());

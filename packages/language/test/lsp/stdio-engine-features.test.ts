@@ -6,7 +6,7 @@
 // codeAction returns (Command | CodeAction)[] with WorkspaceEdit changes.
 // Expected numbers come from the headless loader on the same file (the same
 // engine on this side of the wire).
-import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
@@ -17,16 +17,7 @@ import { loadDocuments } from '../../src/document.js';
 import { shutdown } from './stdio-client.js';
 import { applyEdits, SLOW_SYSTEM } from './live-services.js';
 import { examplesDir, startEngineSession, type EngineSession } from './stdio-engine-client.js';
-
-function vacnetFiles(dir: string): string[] {
-  return readdirSync(dir)
-    .flatMap((entry) => {
-      const full = join(dir, entry);
-      if (statSync(full).isDirectory()) return vacnetFiles(full);
-      return entry.endsWith('.vacnet') ? [full] : [];
-    })
-    .sort();
-}
+import { vacnetFiles } from '../example-files.js';
 
 const key = (d: { code?: unknown; severity?: unknown; message: unknown; range: { start: { line: number; character: number }; end: { line: number; character: number } } }) =>
   `${String(d.code)}|${d.severity}|${d.range.start.line}:${d.range.start.character}-${d.range.end.line}:${d.range.end.character}|${d.message}`;

@@ -2,24 +2,17 @@
 // element per line ... comments survive formatting") and issue 4 item 5
 // spells out: idempotent, keeps every comment, aligns nothing. The expected
 // texts below are written by hand from those rules.
-import { readdirSync, readFileSync, statSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { expectFormatting } from 'langium/test';
 import { describe, expect, it } from 'vitest';
 import { formatText } from '../../src/index.js';
 import { Vacnet } from '../helpers.js';
+import { vacnetFiles } from '../example-files.js';
 
 const format = expectFormatting(Vacnet);
 const examples = fileURLToPath(new URL('../../../../examples/', import.meta.url));
-
-function vacnetFiles(dir: string): string[] {
-  return readdirSync(dir).flatMap((entry) => {
-    const full = join(dir, entry);
-    if (statSync(full).isDirectory()) return vacnetFiles(full);
-    return entry.endsWith('.vacnet') ? [full] : [];
-  });
-}
 
 /** Every comment in a text, with the indentation of continuation lines removed (the formatter may move a block comment as a whole). */
 function comments(text: string): string[] {

@@ -2,17 +2,14 @@
 // when every node is visited in document order (Langium's own walk), on
 // every example file, valid and invalid: the same scopes, the same names in
 // the same order.
-import { readdirSync, readFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import * as path from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { AstUtils, EmptyFileSystem, MultiMap, URI, type AstNode, type AstNodeDescription, type LangiumDocument } from 'langium';
 import { describe, expect, it } from 'vitest';
 import { createVacnetServices } from '../../src/vacnet-module.js';
 import type { VacnetScopeComputation } from '../../src/references/vacnet-scope-computation.js';
+import { EXAMPLES_DIR as examples, vacnetFiles } from '../example-files.js';
 
-const examples = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../../../examples');
-const files = (folder: string): string[] =>
-  readdirSync(folder, { withFileTypes: true }).flatMap((e) => (e.isDirectory() ? files(path.join(folder, e.name)) : e.name.endsWith('.vacnet') ? [path.join(folder, e.name)] : []));
 
 const { Vacnet } = createVacnetServices(EmptyFileSystem);
 const computation = Vacnet.references.ScopeComputation as VacnetScopeComputation;
@@ -29,7 +26,7 @@ const shape = (symbols: MultiMap<AstNode, AstNodeDescription>) =>
   [...symbols.keys()].map((scope) => ({ scope: scope.$type, offset: scope.$cstNode?.offset, names: symbols.get(scope).map((d) => `${d.type}:${d.name}`) }));
 
 describe('VacnetScopeComputation.collectLocalSymbols', () => {
-  const all = files(examples);
+  const all = vacnetFiles();
   it('has examples to compare on', () => expect(all.length).toBeGreaterThan(20));
   it.each(all.map((f) => [path.relative(examples, f), f]))('%s: the same scopes and names as a visit of every node', async (_name, file) => {
     const document = Vacnet.shared.workspace.LangiumDocumentFactory.fromString(readFileSync(file, 'utf8'), URI.file(file));
